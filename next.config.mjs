@@ -5,6 +5,8 @@ const nextConfig = {
   poweredByHeader: false,
   experimental: {
     serverActions: { bodySizeLimit: "8mb" },
+    // forbidden() answers 403 with app/forbidden.tsx instead of a generic error page.
+    authInterrupts: true,
   },
 };
 

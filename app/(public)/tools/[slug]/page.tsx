@@ -1,0 +1,70 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { getToolBySlug } from "@/db/queries/catalogue";
+import { formatFrequencies, formatOptional, formatPrice, formatRange, formatRatedVoltage } from "@/lib/format";
+import { toolCategoryLabels } from "@/lib/validations/catalogue";
+
+const applianceTypeLabels = {
+  heating: "Heating appliance",
+  motor: "Motor-operated appliance",
+  combined: "Combined appliance",
+} as const;
+
+export async function generateMetadata({ params }: PageProps<"/tools/[slug]">): Promise<Metadata> {
+  const tool = await getToolBySlug({ slug: (await params).slug });
+  return { title: tool ? `${tool.maker} ${tool.model}` : "Tool not found" };
+}
+
+export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
+  const tool = await getToolBySlug({ slug: (await params).slug });
+  if (!tool) notFound();
+  const ratings: [string, string][] = [
+    ["Rated power input", `${tool.ratedPowerW} W`],
+    ["Rated voltage", formatRatedVoltage(tool.ratedVoltageMin, tool.ratedVoltageMax)],
+    ["Rated frequency", formatFrequencies(tool.ratedFrequenciesHz)],
+    ["Rated airflow", formatOptional(tool.ratedAirflowLpm, "L/min")],
+    ["Temperature range", formatRange(tool.temperatureMinC, tool.temperatureMaxC, "°C")],
+    ["Claimed heat-up time", formatOptional(tool.claimedHeatUpSeconds, "s")],
+    ["Appliance type (IEC 60335-1)", applianceTypeLabels[tool.applianceType]],
+    ["Price", formatPrice(tool.priceMinor, tool.currency)],
+  ];
+  return (
+    <article className="space-y-8">
+      <header className="space-y-2">
+        <p className="text-sm font-semibold uppercase tracking-widest text-copper">{toolCategoryLabels[tool.category]}</p>
+        <h1 className="font-serif text-display">
+          {tool.maker} {tool.model}
+        </h1>
+        <p className="max-w-2xl font-serif text-lg text-ink-soft">{tool.summary}</p>
+      </header>
+      <section aria-labelledby="ratings-heading" className="max-w-2xl">
+        <h2 id="ratings-heading" className="mb-3 font-serif text-2xl">
+          Ratings as the maker states them
+        </h2>
+        <dl className="divide-y divide-rule rounded border border-rule bg-paper-raised">
+          {ratings.map(([label, value]) => (
+            <div key={label} className="grid grid-cols-2 gap-4 px-4 py-2">
+              <dt className="text-ink-soft">{label}</dt>
+              <dd className="figure">{value}</dd>
+            </div>
+          ))}
+        </dl>
+      </section>
+      {tool.accessories.length ? (
+        <section aria-labelledby="accessories-heading" className="max-w-2xl">
+          <h2 id="accessories-heading" className="mb-3 font-serif text-2xl">
+            In the box
+          </h2>
+          <ul className="list-disc space-y-1 pl-6">
+            {tool.accessories.map((accessory) => (
+              <li key={`${accessory.kind}-${accessory.name}`}>
+                {accessory.name}
+                {accessory.size ? <span className="figure text-ink-soft"> ({accessory.size})</span> : null}
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+    </article>
+  );
+}

@@ -1,0 +1,91 @@
+import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from "react";
+
+type FieldErrors = Record<string, string[] | undefined> | undefined;
+
+export function TextField({
+  label,
+  name,
+  errors,
+  hint,
+  ...input
+}: { label: string; name: string; errors?: FieldErrors; hint?: ReactNode } & InputHTMLAttributes<HTMLInputElement>) {
+  const messages = errors?.[name];
+  const describedBy = [hint ? `${name}-hint` : null, messages?.length ? `${name}-error` : null].filter(Boolean).join(" ");
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={name} className="text-sm font-semibold text-ink">
+        {label}
+      </label>
+      <input
+        id={name}
+        name={name}
+        aria-invalid={messages?.length ? true : undefined}
+        aria-describedby={describedBy || undefined}
+        className="rounded border border-rule bg-paper-raised px-3 py-2 text-base text-ink aria-invalid:border-copper"
+        {...input}
+      />
+      {hint ? (
+        <p id={`${name}-hint`} className="text-xs text-ink-faint">
+          {hint}
+        </p>
+      ) : null}
+      <FieldError id={`${name}-error`} messages={messages} />
+    </div>
+  );
+}
+
+export function SelectField({
+  label,
+  name,
+  errors,
+  children,
+  ...select
+}: { label: string; name: string; errors?: FieldErrors; children: ReactNode } & SelectHTMLAttributes<HTMLSelectElement>) {
+  const messages = errors?.[name];
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={select.id ?? name} className="text-sm font-semibold text-ink">
+        {label}
+      </label>
+      <select
+        id={select.id ?? name}
+        name={name}
+        aria-invalid={messages?.length ? true : undefined}
+        className="rounded border border-rule bg-paper-raised px-3 py-2 text-base text-ink"
+        {...select}
+      >
+        {children}
+      </select>
+      <FieldError id={`${select.id ?? name}-error`} messages={messages} />
+    </div>
+  );
+}
+
+function FieldError({ id, messages }: { id: string; messages: string[] | undefined }) {
+  if (!messages?.length) return null;
+  return (
+    <p id={id} className="text-sm text-copper-deep">
+      {messages.join(" ")}
+    </p>
+  );
+}
+
+export function SubmitButton({ children, pending }: { children: ReactNode; pending: boolean }) {
+  return (
+    <button
+      type="submit"
+      disabled={pending}
+      className="rounded bg-ink px-4 py-2 font-semibold text-paper-raised hover:bg-ink-soft disabled:opacity-60"
+    >
+      {pending ? "Working…" : children}
+    </button>
+  );
+}
+
+export function FormStatus({ status, message }: { status: string; message?: string }) {
+  return (
+    <p aria-live="polite" role="status" className={`min-h-5 text-sm ${status === "ok" ? "text-verdigris-deep" : "text-copper-deep"}`}>
+      {status !== "idle" ? message : null}
+    </p>
+  );
+}

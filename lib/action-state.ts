@@ -1,0 +1,8 @@
+// Shared by server actions and the client forms that call them, so it must not import server-only code.
+export type ActionState = {
+  status: "idle" | "ok" | "error" | "unauthenticated" | "forbidden";
+  message?: string;
+  fieldErrors?: Record<string, string[] | undefined>;
+};
+
+export const idleActionState: ActionState = { status: "idle" };

@@ -1,0 +1,71 @@
+// What each role may do, in one place. Pages, route handlers and server actions look their
+// permission up here; tests/integration/authorization.test.ts fails on any entry point missing from it.
+
+export const roles = ["reader", "reviewer", "editor", "admin"] as const;
+export type Role = (typeof roles)[number];
+
+export const permissions = {
+  "account:manage": ["reader", "reviewer", "editor", "admin"],
+  "workspace:use": ["reviewer", "editor"],
+  "catalogue:edit": ["reviewer", "editor"],
+  "desk:use": ["editor"],
+  "users:manage": ["admin"],
+  "mail:inspect": ["admin"],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Permission = keyof typeof permissions;
+
+/** "public" means anyone, signed in or not. */
+export type Access = Permission | "public";
+
+export function can(role: Role | null | undefined, permission: Access): boolean {
+  if (permission === "public") return true;
+  if (!role) return false;
+  return (permissions[permission] as readonly Role[]).includes(role);
+}
+
+/** Pages by their route pattern, as the folders under app/ spell them (route groups left out). */
+export const pageAccess = {
+  "/": "public",
+  "/tools": "public",
+  "/tools/[slug]": "public",
+  "/sign-in": "public",
+  "/sign-up": "public",
+  "/reset-password": "public",
+  "/reset-password/[token]": "public",
+  "/account": "account:manage",
+  "/workspace": "workspace:use",
+  "/desk": "desk:use",
+  "/admin": "users:manage",
+  "/admin/mail": "mail:inspect",
+} as const satisfies Record<string, Access>;
+
+/** Route handlers by pattern and method. */
+export const routeHandlerAccess = {
+  "GET /api/tools": "public",
+  "GET /api/auth/[...nextauth]": "public",
+  "POST /api/auth/[...nextauth]": "public",
+  "GET /api/avatars/[userId]": "public",
+} as const satisfies Record<string, Access>;
+
+/** Server actions by "<file under app/>#<export>". */
+export const actionAccess = {
+  "(auth)/actions.ts#signInWithPassword": "public",
+  "(auth)/actions.ts#signUpReader": "public",
+  "(auth)/actions.ts#requestPasswordReset": "public",
+  "(auth)/actions.ts#resetPassword": "public",
+  "(auth)/actions.ts#signOutUser": "account:manage",
+  "(account)/actions.ts#updateAvatar": "account:manage",
+  "(admin)/actions.ts#changeUserRole": "users:manage",
+} as const satisfies Record<string, Access>;
+
+export type PagePattern = keyof typeof pageAccess;
+export type ActionKey = keyof typeof actionAccess;
+
+/** Navigation per role: what each signed-in role sees beyond the public pages. */
+export const roleNavigation: readonly { href: PagePattern; label: string; permission: Permission }[] = [
+  { href: "/workspace", label: "Bench workspace", permission: "workspace:use" },
+  { href: "/desk", label: "Editor's desk", permission: "desk:use" },
+  { href: "/admin", label: "Accounts", permission: "users:manage" },
+  { href: "/admin/mail", label: "Outgoing mail", permission: "mail:inspect" },
+];
