@@ -1,0 +1,66 @@
+import { mkdtemp, rm } from "node:fs/promises";
+import os from "node:os";
+import path from "node:path";
+import { chromium, type BrowserContext, type Page } from "playwright-core";
+
+export const BASE_URL = (process.env.BASE_URL ?? "http://localhost:3100").replace(/\/$/, "");
+
+export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
+
+// Headless Debian chromium as root in a container; the last rule stops it from resolving anything beyond loopback.
+export const CHROMIUM_ARGS = [
+  "--no-sandbox",
+  "--disable-gpu",
+  "--disable-quic",
+  "--no-first-run",
+  "--disable-background-networking",
+  "--disable-component-update",
+  "--disable-sync",
+  "--host-resolver-rules=MAP * ~NOTFOUND, EXCLUDE localhost, EXCLUDE 127.0.0.1",
+];
+
+export type E2eBrowser = {
+  context: BrowserContext;
+  newPage: () => Promise<Page>;
+  close: () => Promise<void>;
+};
+
+/**
+ * A fresh browser profile per call (so sessions never leak between tests); `close` removes it again.
+ * launchPersistentContext because passing --user-data-dir to launch() fails.
+ */
+export async function launchBrowser(options: { viewport?: { width: number; height: number } } = {}): Promise<E2eBrowser> {
+  const profileDir = await mkdtemp(path.join(os.tmpdir(), "benchplate-e2e-"));
+  const context = await chromium.launchPersistentContext(profileDir, {
+    executablePath: CHROMIUM_PATH,
+    headless: true,
+    args: CHROMIUM_ARGS,
+    viewport: options.viewport ?? { width: 1280, height: 800 },
+  });
+  return {
+    context,
+    newPage: () => context.newPage(),
+    close: async () => {
+      await context.close();
+      await rm(profileDir, { recursive: true, force: true });
+    },
+  };
+}
+
+export const PHONE_VIEWPORT = { width: 390, height: 844 };
+export const DESKTOP_VIEWPORT = { width: 1280, height: 800 };
+
+export function url(pathname: string): string {
+  return `${BASE_URL}${pathname.startsWith("/") ? pathname : `/${pathname}`}`;
+}
+
+/** Signs in through the real form and waits until the app has navigated away from the sign-in page. */
+export async function signIn(page: Page, email: string, password: string): Promise<void> {
+  await page.goto(url("/sign-in"));
+  await page.getByLabel("Email").fill(email);
+  await page.getByLabel("Password", { exact: true }).fill(password);
+  await Promise.all([
+    page.waitForURL((current) => !current.pathname.startsWith("/sign-in"), { timeout: 15_000 }),
+    page.getByRole("button", { name: "Sign in" }).click(),
+  ]);
+}
