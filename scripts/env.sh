@@ -71,7 +71,7 @@ if [[ "$_bp_mode" == "test" ]]; then
   export PORT=3100
   export AUTH_URL="http://localhost:3100"
   export APP_ORIGIN="http://localhost:3100"
-  export BASE_URL="http://localhost:3100"
+  export E2E_BASE_URL="http://localhost:3100"
   export S3_PORT=4570
   export S3_ENDPOINT="http://127.0.0.1:4570"
   export S3_REGION="us-east-1"

@@ -69,7 +69,7 @@ if node_modules/.bin/next build; then
   record build ok
   start_service "app" "$logs/app.log" node_modules/.bin/next start -p "$PORT"
   # In a subshell, so an app that never answers fails this stage instead of ending the run before the summary.
-  if (wait_for_http "$(last_service_pid)" "$BASE_URL/" 60 "the app" "$logs/app.log"); then
+  if (wait_for_http "$(last_service_pid)" "$E2E_BASE_URL/" 60 "the app" "$logs/app.log"); then
     run_stage e2e node_modules/.bin/vitest run --project e2e --passWithNoTests
   else
     record e2e "FAILED (app did not start)"

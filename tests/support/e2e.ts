@@ -3,7 +3,8 @@ import os from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
 
-export const BASE_URL = (process.env.BASE_URL ?? "http://localhost:3100").replace(/\/$/, "");
+// Not BASE_URL: vitest fills process.env.BASE_URL with Vite's public base path ("/").
+export const BASE_URL = (process.env.E2E_BASE_URL ?? "http://localhost:3100").replace(/\/$/, "");
 
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
 
