@@ -109,6 +109,23 @@ export function demodulateVoltage(voltage: Float64Array, sampleRateHz: number): 
   return { meanSquare, rateHz: sampleRateHz / block };
 }
 
+/**
+ * The demodulator's output rebuilt from half-cycle r.m.s. values, each held for its half-cycle.
+ * For changes that fall on zero crossings, as burst-fire switching does, the squared voltage's
+ * low-frequency content is exactly this staircase: what it lacks is the 2f carrier, which the
+ * Butterworth would have removed.
+ */
+export function demodulateHalfCycles(rms: Float64Array, halfCycleSeconds: number): DemodulatedVoltage {
+  const samplesPerHalfCycle = halfCycleSeconds * INTERNAL_RATE_HZ;
+  const count = Math.round(rms.length * samplesPerHalfCycle);
+  const meanSquare = new Float64Array(count);
+  for (let j = 0; j < count; j++) {
+    const u = rms[Math.min(rms.length - 1, Math.floor(j / samplesPerHalfCycle))]!;
+    meanSquare[j] = u * u;
+  }
+  return { meanSquare, rateHz: INTERNAL_RATE_HZ };
+}
+
 /** Instantaneous flicker sensation over the 600 s observation period, one value per demodulated sample. */
 export function pinstSeries(
   demodulated: DemodulatedVoltage,
