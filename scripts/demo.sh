@@ -11,12 +11,14 @@ _run_tag="demo"
 source "$ROOT/scripts/run-lib.sh"
 
 db_was_running=false
+db_started=false
 cleanup() {
   local status=$?
   trap - INT TERM EXIT
   echo
   stop_services
-  if [[ "$db_was_running" == false ]]; then bash "$ROOT/scripts/db.sh" stop || true; fi
+  # Only a database this run started is stopped: one already running may serve a test run or another session.
+  if [[ "$db_started" == true && "$db_was_running" == false ]]; then bash "$ROOT/scripts/db.sh" stop || true; fi
   exit "$status"
 }
 trap cleanup EXIT
@@ -32,6 +34,7 @@ export MAIL_FAKE_INBOX_URL="${MAIL_FAKE_INBOX_URL:-http://127.0.0.1:$MAIL_FAKE_I
 require_free_ports "$PORT" "$S3_PORT" "$SMTP_PORT" "$MAIL_FAKE_INBOX_PORT"
 
 if db_running; then db_was_running=true; fi
+db_started=true
 bash "$ROOT/scripts/db.sh" start
 
 say "migrating and seeding the database"
