@@ -1,5 +1,7 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
+  // The test runner builds into its own folder so a running demo is never swapped out underneath.
+  distDir: process.env.NEXT_DIST_DIR || ".next",
   // Native modules and the S3 SDK are loaded from node_modules at run time rather than bundled.
   serverExternalPackages: ["sharp", "@node-rs/argon2", "postgres"],
   poweredByHeader: false,

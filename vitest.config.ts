@@ -20,6 +20,8 @@ export default defineConfig({
           include: ["tests/integration/**/*.test.ts"],
           environment: "node",
           setupFiles: ["tests/support/integration-setup.ts"],
+          // next-auth imports "next/server" without an extension, which only a bundler resolves.
+          server: { deps: { inline: ["next-auth"] } },
           fileParallelism: false,
           testTimeout: 30_000,
           hookTimeout: 60_000,

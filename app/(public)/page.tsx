@@ -1,6 +1,5 @@
 import Link from "next/link";
 import { listTools } from "@/db/queries/catalogue";
-import { SafetyNotice } from "@/components/safety-notice";
 import { formatRatedVoltage } from "@/lib/format";
 import { toolCategoryLabels } from "@/lib/validations/catalogue";
 
@@ -10,7 +9,7 @@ export default async function HomePage() {
     <div className="space-y-10">
       <section className="max-w-3xl space-y-4">
         <p className="text-sm font-semibold uppercase tracking-widest text-copper">Bench-tested, with the numbers shown</p>
-        <h1 className="font-serif text-display">What the rating plate says, and what the bench measured</h1>
+        <h1 className="font-serif text-4xl sm:text-display">What the rating plate says, and what the bench measured</h1>
         <p className="font-serif text-lg text-ink-soft">
           Reviewers test hot-air rework stations, soldering stations and heat guns under a written protocol, capture current and
           voltage on the bench, and publish true RMS current, real power, burst-fire patterns, harmonics and the flicker a tool can
@@ -43,8 +42,6 @@ export default async function HomePage() {
           ))}
         </ul>
       </section>
-
-      <SafetyNotice />
     </div>
   );
 }

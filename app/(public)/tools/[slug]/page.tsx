@@ -32,7 +32,7 @@ export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
     <article className="space-y-8">
       <header className="space-y-2">
         <p className="text-sm font-semibold uppercase tracking-widest text-copper">{toolCategoryLabels[tool.category]}</p>
-        <h1 className="font-serif text-display">
+        <h1 className="font-serif text-4xl sm:text-display">
           {tool.maker} {tool.model}
         </h1>
         <p className="max-w-2xl font-serif text-lg text-ink-soft">{tool.summary}</p>
