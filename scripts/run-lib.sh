@@ -52,7 +52,7 @@ require_free_ports() {
   local port
   for port in "$@"; do
     if port_taken "$port"; then
-      fail "port $port on 127.0.0.1 is already in use (a previous run still going?); stop it and retry"
+      fail "port $port on 127.0.0.1 is already in use (a previous run, or another checkout on this machine?); stop it, or move the ports (BENCHPLATE_TEST_PORT_OFFSET for tests, PORT/S3_PORT/SMTP_PORT/MAIL_FAKE_INBOX_PORT for the demo)"
     fi
   done
 }
