@@ -63,6 +63,8 @@ if ! _bp_is_set AUTH_SECRET || [[ -z "$AUTH_SECRET" ]]; then
 fi
 
 export NEXT_TELEMETRY_DISABLED=1
+# The pinned AWS SDK runs fine on Node 20; its notice about future releases needing Node 22 only clutters logs.
+export AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED=true
 # db.sh reads the same variable, so moving the project's Postgres to another port moves both ends.
 _bp_db_port="${BENCHPLATE_DB_PORT:-54329}"
 export AUTH_TRUST_HOST=true

@@ -18,6 +18,7 @@ const testDefaults: Record<string, string> = {
   MAIL_FROM: "Benchplate <desk@benchplate.test>",
   MAIL_FAKE_INBOX_URL: "http://127.0.0.1:2581",
   NEXT_TELEMETRY_DISABLED: "1",
+  AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true",
 };
 
 for (const [name, value] of Object.entries(testDefaults)) {
