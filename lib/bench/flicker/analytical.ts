@@ -7,7 +7,7 @@
 import { OBSERVATION_SECONDS } from "./flickermeter";
 import type { VoltageChanges } from "./voltage-changes";
 
-export const ANALYTICAL_MAX_CHANGES_PER_MINUTE = 40;
+const ANALYTICAL_MAX_CHANGES_PER_MINUTE = 40;
 const STEP_SHAPE_FACTOR = 1;
 
 export interface AnalyticalPst {

@@ -6,10 +6,11 @@
  *
  * Internal sample rate: the demodulated signal (the voltage squared) is averaged over blocks to
  * about 2 kHz before the filters run. Block averaging is a sinc low-pass with its nulls on the
- * multiples of the new rate, so nothing aliases into the 0–42 Hz band the meter looks at, and the
- * 2f carrier (100 or 120 Hz) stays far below the new Nyquist frequency for the Butterworth to
- * remove as the standard intends. At 2 kHz the 620 s run is 1.24 M samples per lamp, a few tens
- * of milliseconds, instead of 31 M at a 50 kS/s capture's own rate.
+ * multiples of the new rate, and whatever would fold into the 0–42 Hz band the meter looks at
+ * lies beside those nulls (attenuated about fifty-fold or more); the 2f carrier (100 or 120 Hz)
+ * stays far below the new Nyquist frequency, for the Butterworth to remove as the standard
+ * intends. At 2 kHz the 620 s run is 1.24 M samples, tens of milliseconds, instead of 31 M at a
+ * 50 kS/s capture's own rate.
  */
 import {
   butterworthLowPass,
@@ -26,7 +27,7 @@ export type { Lamp } from "./filters";
 export const OBSERVATION_SECONDS = 600;
 
 /** Filters run this long before the observation period opens, so their start-up transients are gone (high-pass τ = 3.2 s). */
-export const SETTLING_SECONDS = 20;
+const SETTLING_SECONDS = 20;
 
 const INTERNAL_RATE_HZ = 2000;
 const MIN_SAMPLE_RATE_HZ = 1000;
@@ -91,7 +92,7 @@ function pinstScale(supply: SupplyFrequency, rateHz: number): number {
 }
 
 /** Squaring demodulator with block averaging down to the internal rate (see the file comment). */
-export function demodulateVoltage(voltage: Float64Array, sampleRateHz: number): DemodulatedVoltage {
+function demodulateVoltage(voltage: Float64Array, sampleRateHz: number): DemodulatedVoltage {
   if (!(sampleRateHz >= MIN_SAMPLE_RATE_HZ)) {
     throw new RangeError(`flickermeter needs at least ${MIN_SAMPLE_RATE_HZ} samples/s, got ${sampleRateHz}`);
   }

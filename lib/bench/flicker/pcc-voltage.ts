@@ -139,7 +139,7 @@ export function pccHalfCycleRms(sim: PccSimulation): HalfCycleVoltage {
   const rotation = (2 * Math.PI * frequencyHz) / sampleRateHz;
   const last = current.length - 1;
 
-  const rms = new Float64Array(Math.ceil(2 * cycles) + 1);
+  const rms = new Float64Array(2 * cycles + 1);
   let count = 0;
   let sum = 0;
   let started = false;
