@@ -1,0 +1,216 @@
+// Mains frequency, half-cycle boundaries and whole-record figures (true RMS,
+// peak, crest factor, DC, real and apparent power, power factor) from sampled
+// current and, when captured, voltage. Definitions as REFERENCES.md §7: RMS
+// over whole cycles, P = mean of v·i, S = Vrms·Irms, PF = P/S.
+
+/** Measured frequencies outside this band are taken as a failed measurement, and the nominal is used. */
+const PLAUSIBLE_MAINS_HZ = { min: 40, max: 70 };
+
+/** Hysteresis around zero as a share of the signal's robust peak, so noise near zero makes no crossings. */
+const CROSSING_HYSTERESIS = 0.1;
+
+/** Crossings needed before a frequency is trusted. */
+const MIN_RISING_CROSSINGS = 3;
+
+/** The 99.9th percentile of |x|: a peak that one spike cannot drag up (sets thresholds; the reported peak is the true one). */
+export function robustPeak(signal: Float64Array): number {
+  const max = peakMagnitude(signal);
+  if (max === 0) return 0;
+  const bins = 1024;
+  const counts = new Uint32Array(bins + 1);
+  const perUnit = bins / max;
+  for (let k = 0; k < signal.length; k++) {
+    const bin = Math.floor(Math.abs(signal[k] as number) * perUnit);
+    counts[bin] = (counts[bin] as number) + 1;
+  }
+  let remaining = Math.ceil(signal.length * 0.001);
+  for (let bin = bins; bin >= 0; bin--) {
+    remaining -= counts[bin] as number;
+    if (remaining <= 0) return ((bin + 1) / bins) * max;
+  }
+  return max;
+}
+
+export interface ZeroCrossings {
+  /** Fractional sample positions, interpolated linearly between the samples either side of zero. */
+  positions: number[];
+  /** +1 for a rising crossing, −1 for a falling one, per position. */
+  directions: number[];
+}
+
+/**
+ * Crossings of zero with hysteresis: the signal must leave a ±threshold band on
+ * the other side before a crossing counts, and the crossing is placed at the
+ * last sign change before it left. A signal resting at zero (a blocked
+ * half-cycle) makes none.
+ */
+export function findZeroCrossings(signal: Float64Array, threshold: number): ZeroCrossings {
+  const positions: number[] = [];
+  const directions: number[] = [];
+  if (!(threshold > 0)) return { positions, directions };
+  let state = 0;
+  let lastSignChange = -1;
+  let previous = signal[0] ?? 0;
+  for (let k = 1; k < signal.length; k++) {
+    const value = signal[k] as number;
+    if (previous <= 0 !== value <= 0) lastSignChange = k;
+    if (value > threshold) {
+      if (state < 0 && lastSignChange > 0) {
+        positions.push(interpolateZero(signal, lastSignChange));
+        directions.push(1);
+      }
+      state = 1;
+    } else if (value < -threshold) {
+      if (state > 0 && lastSignChange > 0) {
+        positions.push(interpolateZero(signal, lastSignChange));
+        directions.push(-1);
+      }
+      state = -1;
+    }
+    previous = value;
+  }
+  return { positions, directions };
+}
+
+function interpolateZero(signal: Float64Array, after: number): number {
+  const a = signal[after - 1] as number;
+  const b = signal[after] as number;
+  return a === b ? after : after - 1 + a / (a - b);
+}
+
+export interface MainsFrequency {
+  frequencyHz: number;
+  source: "voltage" | "current" | "nominal";
+  /** Crossings of the signal the frequency came from (empty for the nominal), to place half-cycle boundaries. */
+  crossings: ZeroCrossings;
+}
+
+/**
+ * Cycles are counted between successive rising crossings by rounding each
+ * interval to whole periods, so the off gaps of a burst-fired current (no
+ * crossings for many cycles) still count; frequency = cycles / time between
+ * the first and last crossing.
+ */
+export function frequencyFromCrossings(crossings: ZeroCrossings, sampleRateHz: number): number | null {
+  const rising = crossings.positions.filter((_, k) => crossings.directions[k] === 1);
+  if (rising.length < MIN_RISING_CROSSINGS) return null;
+  const intervals: number[] = [];
+  for (let k = 1; k < rising.length; k++) intervals.push((rising[k] as number) - (rising[k - 1] as number));
+  const shortest = sampleRateHz / PLAUSIBLE_MAINS_HZ.max;
+  const longest = sampleRateHz / PLAUSIBLE_MAINS_HZ.min;
+  const oneCycle = intervals.filter((interval) => interval >= shortest && interval <= longest).sort((a, b) => a - b);
+  if (oneCycle.length < MIN_RISING_CROSSINGS - 1) return null;
+  const typical = oneCycle[Math.floor(oneCycle.length / 2)] as number;
+  let cycles = 0;
+  for (const interval of intervals) cycles += Math.round(interval / typical);
+  const span = (rising[rising.length - 1] as number) - (rising[0] as number);
+  if (cycles === 0 || span <= 0) return null;
+  const frequencyHz = (cycles / span) * sampleRateHz;
+  return frequencyHz >= PLAUSIBLE_MAINS_HZ.min && frequencyHz <= PLAUSIBLE_MAINS_HZ.max ? frequencyHz : null;
+}
+
+/** From the voltage's zero crossings, else the current's while it conducts, else the nominal. */
+export function measureMainsFrequency(input: {
+  current: Float64Array;
+  voltage: Float64Array | null;
+  sampleRateHz: number;
+  nominalHz: number;
+}): MainsFrequency {
+  const { sampleRateHz } = input;
+  const candidates: { signal: Float64Array | null; source: "voltage" | "current" }[] = [
+    { signal: input.voltage, source: "voltage" },
+    { signal: input.current, source: "current" },
+  ];
+  for (const { signal, source } of candidates) {
+    if (signal === null) continue;
+    const crossings = findZeroCrossings(signal, CROSSING_HYSTERESIS * robustPeak(signal));
+    const frequencyHz = frequencyFromCrossings(crossings, sampleRateHz);
+    if (frequencyHz !== null) return { frequencyHz, source, crossings };
+  }
+  return { frequencyHz: input.nominalHz, source: "nominal", crossings: { positions: [], directions: [] } };
+}
+
+/**
+ * Half-cycle boundaries (fractional sample positions) covering the record:
+ * each boundary snaps to a zero crossing found within a quarter of a half-cycle
+ * of where the measured frequency puts it, and is placed by the frequency where
+ * there is none (a blocked stretch of current). The boundaries follow the
+ * supply's slow frequency drift through the crossings, which a single phase
+ * from the start would not. Partial half-cycles at either end are left out.
+ */
+export function halfCycleBoundaries(crossings: ZeroCrossings, sampleRateHz: number, frequencyHz: number, sampleCount: number): Float64Array {
+  const halfPeriod = sampleRateHz / (2 * frequencyHz);
+  const positions = crossings.positions;
+  const anchor = positions[0] ?? 0;
+  let boundary = anchor - Math.floor(anchor / halfPeriod) * halfPeriod;
+  const boundaries: number[] = [boundary];
+  const tolerance = halfPeriod / 4;
+  let next = 0;
+  for (;;) {
+    const expected = boundary + halfPeriod;
+    if (expected > sampleCount - 1) break;
+    while (next < positions.length && (positions[next] as number) < expected - tolerance) next++;
+    const crossing = positions[next];
+    boundary = crossing !== undefined && crossing <= expected + tolerance ? crossing : expected;
+    if (boundary > sampleCount - 1) break;
+    boundaries.push(boundary);
+  }
+  return Float64Array.from(boundaries);
+}
+
+/** Index of the first sample at or after a fractional boundary. */
+export function firstSampleAt(boundary: number): number {
+  return Math.max(0, Math.ceil(boundary));
+}
+
+export function peakMagnitude(signal: Float64Array): number {
+  let max = 0;
+  for (let k = 0; k < signal.length; k++) {
+    const magnitude = Math.abs(signal[k] as number);
+    if (magnitude > max) max = magnitude;
+  }
+  return max;
+}
+
+/** Sums over a span of samples; whole-record figures are these summed over whole cycles. */
+export interface SampleSums {
+  count: number;
+  current: number;
+  currentSquared: number;
+  voltage: number;
+  voltageSquared: number;
+  product: number;
+}
+
+export interface CurrentFigures {
+  rms: number;
+  peak: number;
+  crestFactor: number | null;
+  dc: number;
+}
+
+export interface VoltageFigures {
+  rms: number;
+  peak: number;
+}
+
+export interface PowerFigures {
+  real: number;
+  apparent: number;
+  factor: number | null;
+}
+
+export function currentFigures(sums: SampleSums, peak: number): CurrentFigures {
+  const rms = Math.sqrt(sums.currentSquared / sums.count);
+  return { rms, peak, crestFactor: rms > 0 ? peak / rms : null, dc: sums.current / sums.count };
+}
+
+export function voltageFigures(sums: SampleSums, peak: number): VoltageFigures {
+  return { rms: Math.sqrt(sums.voltageSquared / sums.count), peak };
+}
+
+export function powerFigures(sums: SampleSums): PowerFigures {
+  const real = sums.product / sums.count;
+  const apparent = Math.sqrt(sums.voltageSquared / sums.count) * Math.sqrt(sums.currentSquared / sums.count);
+  return { real, apparent, factor: apparent > 0 ? real / apparent : null };
+}
