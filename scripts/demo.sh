@@ -71,4 +71,5 @@ EOF
 
 # Returns when any service stops (or on Ctrl-C), and the EXIT trap then stops the rest.
 wait -n "${_started_pids[@]}" || true
-say "a service stopped; shutting down"
+say "a service stopped unexpectedly; shutting down the rest"
+exit 1
