@@ -107,7 +107,8 @@ describe("burst-fired heater sized to a Table 5 row reads Pst = 1 within 5 %", (
       nominalVoltage: 230,
       supplyHz: 50,
       intervalCycles: burstPattern(changesPerMinute, 50, cyclesPerRepeat),
-      cycles: Math.max(cyclesPerRepeat, 2000),
+      // Whole repeats of the pattern, so the capture repeated end to end keeps the row's rhythm.
+      cycles: cyclesPerRepeat * Math.ceil(2000 / cyclesPerRepeat),
     });
     const result = estimate(current);
     expect(Math.abs(result.dmaxPercent / deltaVOverV - 1)).toBeLessThan(0.01);
@@ -268,7 +269,7 @@ describe("flicker unavailable", () => {
 });
 
 describe("speed", () => {
-  it("estimates a 10 M-sample, 50 kS/s current in under 2 s", () => {
+  it("estimates a 10 M-sample, 50 kS/s current in under 2 s of CPU time", () => {
     const current = burstFiredHeaterCurrent({
       watts: 1000,
       nominalVoltage: 230,
@@ -279,9 +280,11 @@ describe("speed", () => {
       noiseAmps: 0.01,
     });
     expect(current.length).toBe(10_000_000);
-    const started = performance.now();
+    // CPU time of this process rather than wall time: other work on a shared machine must not fail it.
+    const started = process.cpuUsage();
     const result = estimate(current, { sampleRateHz: 50_000 });
-    const seconds = (performance.now() - started) / 1000;
+    const used = process.cpuUsage(started);
+    const seconds = (used.user + used.system) / 1e6;
     expect(Math.abs(result.dmaxPercent / 0.756 - 1)).toBeLessThan(0.01);
     expect(seconds).toBeLessThan(2);
   }, 30_000);
