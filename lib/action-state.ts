@@ -3,6 +3,8 @@ export type ActionState = {
   status: "idle" | "ok" | "error" | "unauthenticated" | "forbidden";
   message?: string;
   fieldErrors?: Record<string, string[] | undefined>;
+  /** What was typed, echoed back after a refusal: React resets a form after its action, and retyping everything is hostile. */
+  values?: Record<string, string>;
 };
 
 export const idleActionState: ActionState = { status: "idle" };

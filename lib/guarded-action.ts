@@ -31,15 +31,26 @@ export function guardedAction<K extends ActionKey, S extends z.ZodType>(
         const field = issue.path.join(".") || "form";
         (fieldErrors[field] ??= []).push(issue.message);
       }
-      return { status: "error", message: "Some fields need attention.", fieldErrors };
+      return { status: "error", message: "Some fields need attention.", fieldErrors, values: echoableValues(formData) };
     }
     try {
       return (await body(parsed.data, decision.user as UserFor<K>, formData)) ?? { status: "ok" };
     } catch (error) {
-      if (error instanceof UserFacingError) return { status: "error", message: error.message, fieldErrors: error.fieldErrors };
+      if (error instanceof UserFacingError) {
+        return { status: "error", message: error.message, fieldErrors: error.fieldErrors, values: echoableValues(formData) };
+      }
       throw error;
     }
   };
+}
+
+// Secrets and files are never sent back to the browser.
+function echoableValues(formData: FormData): Record<string, string> {
+  const values: Record<string, string> = {};
+  for (const [name, value] of formData.entries()) {
+    if (typeof value === "string" && !name.startsWith("$ACTION") && !/password|token/i.test(name)) values[name] = value;
+  }
+  return values;
 }
 
 function formEntries(formData: FormData): Record<string, FormDataEntryValue> {

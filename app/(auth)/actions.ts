@@ -42,6 +42,7 @@ export const signInWithPassword = guardedAction(
           message: throttled
             ? "Too many failed attempts. Wait 15 minutes, or reset your password."
             : "That e-mail and password do not match an account.",
+          values: { email, callbackUrl },
         };
       }
       throw error;

@@ -1,14 +1,16 @@
 import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from "react";
 
 type FieldErrors = Record<string, string[] | undefined> | undefined;
+type EchoedValues = Record<string, string> | undefined;
 
 export function TextField({
   label,
   name,
   errors,
+  values,
   hint,
   ...input
-}: { label: string; name: string; errors?: FieldErrors; hint?: ReactNode } & InputHTMLAttributes<HTMLInputElement>) {
+}: { label: string; name: string; errors?: FieldErrors; values?: EchoedValues; hint?: ReactNode } & InputHTMLAttributes<HTMLInputElement>) {
   const messages = errors?.[name];
   const describedBy = [hint ? `${name}-hint` : null, messages?.length ? `${name}-error` : null].filter(Boolean).join(" ");
   return (
@@ -22,6 +24,7 @@ export function TextField({
         aria-invalid={messages?.length ? true : undefined}
         aria-describedby={describedBy || undefined}
         className="rounded border border-rule bg-paper-raised px-3 py-2 text-base text-ink aria-invalid:border-copper"
+        defaultValue={values?.[name]}
         {...input}
       />
       {hint ? (

@@ -9,7 +9,7 @@ export function ResetRequestForm() {
   const [state, formAction, pending] = useActionState(requestPasswordReset, idleActionState);
   return (
     <form action={formAction} className="flex flex-col gap-4" noValidate>
-      <TextField label="Email" name="email" type="email" autoComplete="email" required errors={state.fieldErrors} />
+      <TextField label="Email" name="email" type="email" autoComplete="email" required errors={state.fieldErrors} values={state.values} />
       <FormStatus status={state.status} message={state.message} />
       <SubmitButton pending={pending}>Send a reset link</SubmitButton>
     </form>

@@ -11,8 +11,8 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
   return (
     <form action={formAction} className="flex flex-col gap-4" noValidate>
       <input type="hidden" name="callbackUrl" value={callbackUrl} />
-      <TextField label="Email" name="email" type="email" autoComplete="email" required errors={state.fieldErrors} />
-      <TextField label="Password" name="password" type="password" autoComplete="current-password" required errors={state.fieldErrors} />
+      <TextField label="Email" name="email" type="email" autoComplete="email" required errors={state.fieldErrors} values={state.values} />
+      <TextField label="Password" name="password" type="password" autoComplete="current-password" required errors={state.fieldErrors} values={state.values} />
       <FormStatus status={state.status} message={state.message} />
       <SubmitButton pending={pending}>Sign in</SubmitButton>
       <p className="text-sm text-ink-soft">

@@ -9,10 +9,10 @@ export function SignUpForm() {
   const [state, formAction, pending] = useActionState(signUpReader, idleActionState);
   return (
     <form action={formAction} className="flex flex-col gap-4" noValidate>
-      <TextField label="Name" name="name" autoComplete="name" required errors={state.fieldErrors} hint="Shown beside your comments." />
-      <TextField label="Email" name="email" type="email" autoComplete="email" required errors={state.fieldErrors} />
-      <TextField label="Password" name="password" type="password" autoComplete="new-password" required errors={state.fieldErrors} hint="At least 10 characters." />
-      <TextField label="Password again" name="confirmPassword" type="password" autoComplete="new-password" required errors={state.fieldErrors} />
+      <TextField label="Name" name="name" autoComplete="name" required errors={state.fieldErrors} values={state.values} hint="Shown beside your comments." />
+      <TextField label="Email" name="email" type="email" autoComplete="email" required errors={state.fieldErrors} values={state.values} />
+      <TextField label="Password" name="password" type="password" autoComplete="new-password" required errors={state.fieldErrors} values={state.values} hint="At least 10 characters." />
+      <TextField label="Password again" name="confirmPassword" type="password" autoComplete="new-password" required errors={state.fieldErrors} values={state.values} />
       <FormStatus status={state.status} message={state.message} />
       <SubmitButton pending={pending}>Create reader account</SubmitButton>
     </form>

@@ -1,0 +1,74 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { demoPassword, demoPeople, demoTools } from "@/db/demo-scenario";
+import { can, pageAccess, roleNavigation, roles, type Access, type Role } from "@/lib/authz";
+import { DESKTOP_VIEWPORT, PHONE_VIEWPORT, launchBrowser, signIn, url, type E2eBrowser } from "../support/e2e";
+
+// Concrete paths for each page pattern; unknown ids still exercise the role check before the lookup.
+const samplePaths: Record<keyof typeof pageAccess, string> = {
+  "/": "/",
+  "/tools": "/tools",
+  "/tools/[slug]": `/tools/${demoTools[0]!.slug}`,
+  "/sign-in": "/sign-in",
+  "/sign-up": "/sign-up",
+  "/reset-password": "/reset-password",
+  "/reset-password/[token]": `/reset-password/${"x".repeat(43)}`,
+  "/account": "/account",
+  "/workspace": "/workspace",
+  "/desk": "/desk",
+  "/admin": "/admin",
+  "/admin/mail": "/admin/mail",
+};
+
+function demoAccount(role: Role) {
+  const person = demoPeople.find((candidate) => candidate.role === role);
+  if (!person) throw new Error(`no demo ${role}`);
+  return person;
+}
+
+describe.each([null, ...roles])("signed in as %s", (role) => {
+  let browser: E2eBrowser;
+
+  beforeAll(async () => {
+    browser = await launchBrowser({ viewport: DESKTOP_VIEWPORT });
+    if (role) await signIn(await browser.newPage(), demoAccount(role).email, demoPassword);
+  });
+  afterAll(async () => browser?.close());
+
+  it("sees exactly the navigation of the role", async () => {
+    const page = await browser.newPage();
+    await page.goto(url("/"));
+    const nav = page.getByRole("navigation", { name: "Main" });
+    for (const link of roleNavigation) {
+      await expect
+        .poll(() => nav.getByRole("link", { name: link.label, exact: true }).count())
+        .toBe(can(role, link.permission) ? 1 : 0);
+    }
+    await page.close();
+  });
+
+  it("is served or refused by the server on every page, as the role map says", async () => {
+    for (const [pattern, access] of Object.entries(pageAccess) as [keyof typeof pageAccess, Access][]) {
+      const response = await browser.context.request.get(url(samplePaths[pattern]), { maxRedirects: 0 });
+      const expected = can(role, access) ? 200 : role ? 403 : 307;
+      expect(response.status(), `${pattern} as ${role ?? "anonymous"}`).toBe(expected);
+      if (expected === 307) expect(response.headers().location).toContain("/sign-in?callbackUrl=");
+    }
+  });
+});
+
+describe("at phone width", () => {
+  it("keeps the role navigation reachable", async () => {
+    const browser = await launchBrowser({ viewport: PHONE_VIEWPORT });
+    try {
+      const page = await browser.newPage();
+      await signIn(page, demoAccount("editor").email, demoPassword);
+      await page.goto(url("/"));
+      const deskLink = page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Editor's desk" });
+      await expect.poll(() => deskLink.isVisible()).toBe(true);
+      const box = await deskLink.boundingBox();
+      expect(box!.x + box!.width).toBeLessThanOrEqual(PHONE_VIEWPORT.width);
+    } finally {
+      await browser.close();
+    }
+  });
+});
