@@ -65,6 +65,8 @@ run_stage unit node_modules/.bin/vitest run --project unit --passWithNoTests
 run_stage integration node_modules/.bin/vitest run --project integration --passWithNoTests
 
 say "── build ──"
+# Its own build folder, so a demo serving .next in this checkout is never swapped out underneath.
+export NEXT_DIST_DIR=.next-test
 if node_modules/.bin/next build; then
   record build ok
   start_service "app" "$logs/app.log" node_modules/.bin/next start -p "$PORT"
