@@ -1,7 +1,7 @@
 import tseslint from "typescript-eslint";
 
 export default tseslint.config(
-  { ignores: [".next/**", "node_modules/**", ".data/**", "next-env.d.ts"] },
+  { ignores: [".next/**", ".next-*/**", "tmp/**", "node_modules/**", ".data/**", "next-env.d.ts"] },
   ...tseslint.configs.recommended,
   {
     rules: {

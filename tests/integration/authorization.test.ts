@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { actionAccess, can, pageAccess, roles, routeHandlerAccess, type Role } from "@/lib/authz";
 import { idleActionState, type ActionState } from "@/lib/action-state";
 import { createAccount } from "../support/factories";
-import { actAs, authMock } from "../support/session-mock";
+import { actAs } from "../support/session-mock";
 
 vi.mock("@/lib/auth", async () => (await import("../support/session-mock")).authMock);
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
