@@ -12,18 +12,28 @@ const CROSSING_HYSTERESIS = 0.1;
 /** Crossings needed before a frequency is trusted. */
 const MIN_RISING_CROSSINGS = 3;
 
-/** The 99.9th percentile of |x|: a peak that one spike cannot drag up (sets thresholds; the reported peak is the true one). */
+/** Samples looked at for a robust peak: a percentile needs far fewer than a long capture holds. */
+const ROBUST_PEAK_SAMPLES = 1_000_000;
+
+/**
+ * The 99.9th percentile of |x| over an evenly strided subset of samples: a
+ * peak that one spike cannot drag up (it sets thresholds; the reported peak is
+ * the true maximum).
+ */
 export function robustPeak(signal: Float64Array): number {
-  const max = peakMagnitude(signal);
+  const stride = Math.max(1, Math.floor(signal.length / ROBUST_PEAK_SAMPLES));
+  let max = 0;
+  let looked = 0;
+  for (let k = 0; k < signal.length; k += stride, looked++) max = Math.max(max, Math.abs(signal[k] as number));
   if (max === 0) return 0;
   const bins = 1024;
   const counts = new Uint32Array(bins + 1);
   const perUnit = bins / max;
-  for (let k = 0; k < signal.length; k++) {
+  for (let k = 0; k < signal.length; k += stride) {
     const bin = Math.floor(Math.abs(signal[k] as number) * perUnit);
     counts[bin] = (counts[bin] as number) + 1;
   }
-  let remaining = Math.ceil(signal.length * 0.001);
+  let remaining = Math.ceil(looked * 0.001);
   for (let bin = bins; bin >= 0; bin--) {
     remaining -= counts[bin] as number;
     if (remaining <= 0) return ((bin + 1) / bins) * max;
