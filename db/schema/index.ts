@@ -1,2 +1,4 @@
 export * from "./people";
 export * from "./catalogue";
+export * from "./bench";
+export * from "./reports";

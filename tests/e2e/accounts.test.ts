@@ -1,6 +1,6 @@
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoPassword, demoPeople } from "@/db/demo-scenario";
+import { demoPassword, demoPeople } from "@/db/seeds/people-and-catalogue-data";
 import { launchBrowser, signIn, url, type E2eBrowser } from "../support/e2e";
 import { waitForMessage } from "../support/mail";
 

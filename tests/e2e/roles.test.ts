@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoPassword, demoPeople, demoTools } from "@/db/demo-scenario";
+import { demoPassword, demoPeople, demoTools } from "@/db/seeds/people-and-catalogue-data";
 import { can, pageAccess, roleNavigation, roles, type Access, type Role } from "@/lib/authz";
 import { DESKTOP_VIEWPORT, PHONE_VIEWPORT, launchBrowser, signIn, url, type E2eBrowser } from "../support/e2e";
 
