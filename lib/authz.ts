@@ -8,6 +8,8 @@ export const permissions = {
   "account:manage": ["reader", "reviewer", "editor", "admin"],
   "workspace:use": ["reviewer", "editor"],
   "catalogue:edit": ["reviewer", "editor"],
+  /** Reviewers edit only their own runs and reports; this permission lifts that limit. */
+  "workspace:edit-any": ["editor"],
   "desk:use": ["editor"],
   "users:manage": ["admin"],
   "mail:inspect": ["admin"],
@@ -38,6 +40,9 @@ export const pageAccess = {
   "/desk": "desk:use",
   "/admin": "users:manage",
   "/admin/mail": "mail:inspect",
+  // workspace: tools catalogue, instruments, protocols
+  // workspace: runs, captures, analyses
+  // workspace: reports
 } as const satisfies Record<string, Access>;
 
 /** Route handlers by pattern and method. */
@@ -46,6 +51,9 @@ export const routeHandlerAccess = {
   "GET /api/auth/[...nextauth]": "public",
   "POST /api/auth/[...nextauth]": "public",
   "GET /api/avatars/[userId]": "public",
+  // workspace: tools catalogue, instruments, protocols
+  // workspace: runs, captures, analyses
+  // workspace: reports
 } as const satisfies Record<string, Access>;
 
 /** Server actions by "<file under app/>#<export>". */
@@ -57,6 +65,9 @@ export const actionAccess = {
   "(auth)/actions.ts#signOutUser": "account:manage",
   "(account)/actions.ts#updateAvatar": "account:manage",
   "(admin)/actions.ts#changeUserRole": "users:manage",
+  // workspace: tools catalogue, instruments, protocols
+  // workspace: runs, captures, analyses
+  // workspace: reports
 } as const satisfies Record<string, Access>;
 
 export type PagePattern = keyof typeof pageAccess;

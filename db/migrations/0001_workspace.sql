@@ -15,6 +15,7 @@ CREATE TABLE "analyses" (
 	"status" "analysis_status" DEFAULT 'queued' NOT NULL,
 	"analysis_version" text,
 	"result" jsonb,
+	"display_series" jsonb,
 	"error" jsonb,
 	"started_at" timestamp with time zone,
 	"finished_at" timestamp with time zone,

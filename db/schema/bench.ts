@@ -200,6 +200,13 @@ export const captures = pgTable(
   (table) => [uniqueIndex("captures_object_key_unique").on(table.objectKey), index("captures_run_idx").on(table.runId)],
 );
 
+/** Downsampled series for charts, so pages never re-read a capture of millions of samples. */
+export type DisplaySeries = {
+  waveform?: { timeS: number[]; current: number[]; voltage: number[] | null };
+  halfCycles?: { halfCycleSeconds: number; rmsCurrent: number[]; conducting: boolean[] };
+  heatUp?: { timeS: number[]; temperatureC: number[]; setpointC: number | null };
+};
+
 export const analysisStatusEnum = pgEnum("analysis_status", ["queued", "running", "done", "failed"]);
 
 /** One analysis of a capture under one mapping and one set of instrument specs; never rewritten once done. */
@@ -215,6 +222,7 @@ export const analyses = pgTable(
     status: analysisStatusEnum("status").notNull().default("queued"),
     analysisVersion: text("analysis_version"),
     result: jsonb("result").$type<Record<string, unknown>>(),
+    displaySeries: jsonb("display_series").$type<DisplaySeries>(),
     error: jsonb("error").$type<{ message: string; line: number | null }>(),
     startedAt: timestamp("started_at", { withTimezone: true }),
     finishedAt: timestamp("finished_at", { withTimezone: true }),
