@@ -203,7 +203,7 @@ function summary(file: string, result: CaptureAnalysis): string {
   const above = harmonics.orders.filter((order) => order.withinLimit === false);
   row(
     "Harmonics",
-    `indicative, Class ${harmonics.class}, ${harmonics.windows} windows of ${harmonics.windowCycles} cycles: fundamental ${fixed(harmonics.fundamentalAmps, 4)} A, ` +
+    `indicative, Class ${harmonics.class}, ${harmonics.windows} window${harmonics.windows === 1 ? "" : "s"} of ${harmonics.windowCycles} cycles: fundamental ${fixed(harmonics.fundamentalAmps, 4)} A, ` +
       `THD ${harmonics.thdPercent === null ? "—" : `${fixed(harmonics.thdPercent, 2)} %`}; ` +
       (harmonics.applicable
         ? above.length === 0

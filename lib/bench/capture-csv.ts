@@ -412,10 +412,16 @@ class CaptureReader {
       this.columns = row.fields.map((_, k) => `column ${k + 1}`);
     } else {
       const names = splitCells(namesRow.text, delimiterText);
-      const numericNames = names.filter((name) => isNumberLike(name, this.commaIsDecimal));
-      if (numericNames.length * 2 > names.length) {
-        const text = names.find((name) => !isNumberLike(name, this.commaIsDecimal)) ?? "";
-        throw new CaptureError(`text in numbers: "${clip(text)}" where a number is expected`, namesRow.line);
+      const isNumber = (cell: string) => isNumberLike(cell, this.commaIsDecimal);
+      const numeric = names.filter(isNumber).length;
+      const above = this.headerLines[namesAt - 1];
+      const aboveCells = above === undefined ? null : splitCells(above.text, delimiterText);
+      const namesAbove = aboveCells !== null && aboveCells.length === names.length && !aboveCells.some(isNumber) ? aboveCells : null;
+      // A "names" row that is mostly numbers, or partly numbers under a row of names, is a data row with text in it.
+      if (numeric * 2 > names.length || (numeric > 0 && namesAbove !== null)) {
+        const index = names.findIndex((cell) => !isNumber(cell));
+        const column = namesAbove === null ? `${index + 1}` : `${index + 1} ("${namesAbove[index]}")`;
+        throw new CaptureError(`text in numbers: "${clip(names[index] ?? "")}" in column ${column} is not a number`, namesRow.line);
       }
       if (names.length !== this.columnCount) {
         throw new CaptureError(

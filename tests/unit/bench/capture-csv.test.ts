@@ -1,0 +1,266 @@
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+import { CaptureError, readCapture, readCaptureFile, type CaptureReadOptions } from "@/lib/bench/capture-csv";
+
+const fixtures = join(import.meta.dirname, "../../fixtures/captures");
+const mains = { frequencyHz: 50, minWholeCycles: 10 };
+
+/** Rows of "t,current,voltage" at `rate` S/s: a 50 Hz sine pair, long enough for the mains checks. */
+function rows(count: number, rate = 5000): string[] {
+  return Array.from({ length: count }, (_, k) => {
+    const angle = (2 * Math.PI * 50 * k) / rate;
+    return `${k / rate},${(5 * Math.sin(angle)).toFixed(4)},${(325 * Math.sin(angle)).toFixed(2)}`;
+  });
+}
+
+async function rejection(text: string | Uint8Array, options: CaptureReadOptions = {}): Promise<CaptureError> {
+  try {
+    await readCapture(text, options);
+  } catch (error) {
+    expect(error).toBeInstanceOf(CaptureError);
+    return error as CaptureError;
+  }
+  throw new Error("the capture was accepted");
+}
+
+describe("reading captures", () => {
+  it("reads a scope export: BOM, CRLF, key,value header lines, scientific notation, a clamp scaled to amperes", async () => {
+    const capture = await readCaptureFile(join(fixtures, "orrery-orm42-hot-air.csv"), {
+      current: { column: "CH1", scale: 10 },
+      voltage: { column: 3, scale: 1 },
+      mains,
+    });
+    expect(capture.sampleCount).toBe(1250);
+    expect(capture.sampleRateHz).toBeCloseTo(5000, 6);
+    expect(capture.timeSource).toBe("seconds column");
+    expect(capture.mapping).toEqual({ time: "TIME", current: "CH1", voltage: "CH2", temperature: null });
+    expect(capture.header).toContainEqual({ key: "Model", value: "ORM-42", line: 2 });
+    expect(capture.header).toContainEqual({ key: "Sample Interval", value: "2.0000E-04", line: 5 });
+    expect(capture.firstDataLine).toBe(9);
+    // Row 2 of the data: CH1 2.3119E-02 V through a 100 mV/A clamp.
+    expect(capture.current?.[1]).toBeCloseTo(0.23119, 12);
+    expect(capture.voltage?.[1]).toBeCloseTo(20.383, 12);
+  });
+
+  it("reads a logger export: semicolons, decimal commas, ISO 8601 timestamps, key: value header lines", async () => {
+    const capture = await readCaptureFile(join(fixtures, "tallowmere-tl8-heat-gun.csv"), {
+      current: { column: "clamp a", scale: 10 },
+      mains,
+    });
+    expect(capture.delimiter).toBe(";");
+    expect(capture.timeSource).toBe("timestamp column");
+    expect(capture.sampleRateHz).toBeCloseTo(5000, 6);
+    expect(capture.voltage).toBeNull();
+    expect(capture.header).toContainEqual({ key: "Serial", value: "TL8-000417", line: 2 });
+    expect(capture.current?.[1]).toBeCloseTo(0.309, 12);
+  });
+
+  it("reads a tab-separated dump with decimal commas, a units row and no time column, given the sample interval", async () => {
+    const capture = await readCaptureFile(join(fixtures, "quillon-q3-soldering-station.tsv"), { sampleIntervalSeconds: 0.0002, mains });
+    expect(capture.delimiter).toBe("\t");
+    expect(capture.columns).toEqual(["current", "voltage"]);
+    expect(capture.timeSource).toBe("sample interval");
+    expect(capture.sampleRateHz).toBe(5000);
+    expect(capture.voltage?.[1]).toBeCloseTo(20.42, 12);
+  });
+
+  it("gives the same samples whatever the chunk boundaries", async () => {
+    const text = ["# Kestrelline KL-2 scope", "Vertical: 1 V/div", "time,current,voltage", ...rows(1200)].join("\r\n") + "\r\n";
+    const whole = await readCapture(text, { mains });
+    const bytes = Buffer.from(text);
+    for (const size of [1, 2, 3, 7, 64, 4096]) {
+      const chunks = async function* () {
+        for (let at = 0; at < bytes.length; at += size) yield bytes.subarray(at, at + size);
+      };
+      const chunked = await readCapture(chunks(), { mains });
+      expect(chunked.current).toEqual(whole.current);
+      expect(chunked.voltage).toEqual(whole.voltage);
+    }
+  });
+
+  it("parses numbers exactly: signs, exponents, quotes, spaces, long mantissas", async () => {
+    const text = [
+      "time,current",
+      '0," 1.5 "',
+      "1e-4,-2.5E+1",
+      "2e-4,+.25",
+      "3e-4,3.14159265358979323846",
+      "0.0004,1234567890123456789",
+      "0.0005,7e-30",
+    ].join("\n");
+    const capture = await readCapture(text);
+    expect(Array.from(capture.current ?? [])).toEqual([1.5, -25, 0.25, 3.141592653589793, 1234567890123456800, 7e-30]);
+  });
+
+  it("maps the only channel of a two-column capture to current and finds columns by name with units", async () => {
+    const capture = await readCapture("Time (s),Probe\n0,1\n0.001,2\n");
+    expect(capture.mapping.current).toBe("Probe");
+    const named = await readCapture("Time [s],Current (A),Voltage (V)\n0,1,2\n0.001,3,4\n");
+    expect(named.mapping).toMatchObject({ time: "Time [s]", current: "Current (A)", voltage: "Voltage (V)" });
+  });
+
+  it("accepts timestamps with a zone offset and keeps sub-millisecond steps", async () => {
+    const capture = await readCapture(
+      "timestamp,current\n2025-01-01T00:59:59.9999+01:00,1\n2025-01-01T00:00:00.0000Z,2\n2025-01-01T00:00:00.0001Z,3\n",
+    );
+    expect(capture.sampleRateHz).toBeCloseTo(10_000, 6);
+  });
+});
+
+describe("rejected captures name the problem and the line", () => {
+  const valid = ["time,current,voltage", ...rows(1200)];
+
+  it("empty file", async () => {
+    for (const text of ["", "\n\n  \r\n", "\ufeff"]) {
+      const error = await rejection(text);
+      expect(error.problem).toBe("empty file: there is nothing to read");
+      expect(error.line).toBeNull();
+    }
+  });
+
+  it("binary data: NUL bytes", async () => {
+    const error = await rejection(Buffer.concat([Buffer.from("time,current\n0,1\n"), Buffer.from([0x50, 0x4b, 0x00, 0x03])]));
+    expect(error.problem).toBe("binary data: the file holds NUL bytes, so it is not a CSV text export");
+    expect(error.line).toBe(3);
+  });
+
+  it("binary data: UTF-16 text", async () => {
+    const error = await rejection(Buffer.from("\ufefftime,current\n", "utf16le"));
+    expect(error.problem).toMatch(/^binary data: the file is UTF-16 text/);
+    expect(error.line).toBe(1);
+  });
+
+  it("binary data: control characters in a header line", async () => {
+    const error = await rejection("model\x07x\ntime,current\n0,1\n");
+    expect(error.problem).toBe("binary data: control characters in a text line");
+    expect(error.line).toBe(1);
+  });
+
+  it("header without rows", async () => {
+    const error = await rejection("# Kestrelline KL-2 scope\nSample rate: 5 kS/s\ntime,current\n\n");
+    expect(error.problem).toMatch(/^header without rows: no row of numbers follows the header/);
+    expect(error.line).toBe(3);
+  });
+
+  it("ragged rows: a short row", async () => {
+    const lines = [...valid];
+    lines[500] = "0.0999,1.5";
+    const error = await rejection(lines.join("\n"));
+    expect(error.problem).toBe("ragged rows: 2 values where the column names give 3");
+    expect(error.line).toBe(501);
+  });
+
+  it("ragged rows: the column names and the first row disagree", async () => {
+    const error = await rejection("time,current\n0,1,2\n");
+    expect(error.problem).toBe("ragged rows: 3 values on this line but 2 column names on line 1");
+    expect(error.line).toBe(2);
+  });
+
+  it("text in numbers", async () => {
+    const lines = [...valid];
+    lines[700] = "0.1399,OVERLOAD,12";
+    const error = await rejection(lines.join("\n"));
+    expect(error.problem).toBe('text in numbers: "OVERLOAD" in column 2 ("current") is not a number');
+    expect(error.line).toBe(701);
+  });
+
+  it("text in numbers: an empty value", async () => {
+    const lines = [...valid];
+    lines[3] = "0.0004,,12";
+    const error = await rejection(lines.join("\n"));
+    expect(error.problem).toBe('text in numbers: an empty value in column 2 ("current")');
+    expect(error.line).toBe(4);
+  });
+
+  it("text in numbers: the first data row", async () => {
+    const error = await rejection("time,current\n0,abc\n1e-4,2\n");
+    expect(error.problem).toBe('text in numbers: "abc" in column 2 ("current") is not a number');
+    expect(error.line).toBe(2);
+  });
+
+  it("NaN or infinity in numbers", async () => {
+    for (const [token, shown] of [
+      ["NaN", "NaN"],
+      ["-inf", "-inf"],
+      ["Infinity", "Infinity"],
+      ["1e400", "1e400"],
+    ]) {
+      const lines = [...valid];
+      lines[9] = `0.0018,${token},1`;
+      const error = await rejection(lines.join("\n"));
+      expect(error.problem).toBe(`NaN or infinity in numbers: "${shown}" in column 2 ("current"); only finite numbers can be analysed`);
+      expect(error.line).toBe(10);
+    }
+  });
+
+  it("time not increasing", async () => {
+    const lines = [...valid];
+    lines[300] = lines[299] as string;
+    const error = await rejection(lines.join("\n"));
+    expect(error.problem).toMatch(/^time not increasing: 0\.0596 s follows 0\.0596 s on the row before/);
+    expect(error.line).toBe(301);
+  });
+
+  it("gap in time", async () => {
+    const lines = [...valid.slice(0, 400), ...valid.slice(403)];
+    const error = await rejection(lines.join("\n"));
+    expect(error.problem).toBe("gap in time: 800 µs since the previous row where samples are 200.5 µs apart on average (samples missing?)");
+    expect(error.line).toBe(401);
+  });
+
+  it("sample rate too low for the mains frequency", async () => {
+    const error = await rejection(["time,current", ...rows(100, 1000).map((row) => row.split(",").slice(0, 2).join(","))].join("\n"), {
+      mains,
+    });
+    expect(error.problem).toBe(
+      "sample rate too low: 1000 S/s for 50 Hz mains; harmonics to the 40th need more than 4000 S/s (80 samples a cycle)",
+    );
+    expect(error.line).toBeNull();
+  });
+
+  it("fewer whole cycles than the analysis needs", async () => {
+    const error = await rejection(valid.slice(0, 901).join("\n"), { mains });
+    expect(error.problem).toBe("the capture holds 9 whole cycles of 50 Hz mains (180 ms); the analysis needs at least 10");
+    expect(error.line).toBeNull();
+  });
+
+  it("a column that is not there", async () => {
+    const error = await rejection(valid.join("\n"), { current: { column: "CH4", scale: 1 } });
+    expect(error.problem).toBe('no column named "CH4": the columns are 1 "time", 2 "current", 3 "voltage"');
+    expect(error.line).toBe(1);
+    const byNumber = await rejection(valid.join("\n"), { current: { column: 5, scale: 1 } });
+    expect(byNumber.problem).toBe('there is no column 5: the capture has 3 (1 "time", 2 "current", 3 "voltage")');
+  });
+
+  it("one column mapped twice", async () => {
+    const error = await rejection(valid.join("\n"), { current: { column: 2, scale: 1 }, voltage: { column: "current", scale: 1 } });
+    expect(error.problem).toBe('column 2 ("current") is mapped to both current and voltage');
+    expect(error.line).toBe(1);
+  });
+
+  it("no time column and no sample interval", async () => {
+    const error = await rejection("current,voltage\n1,2\n3,4\n");
+    expect(error.problem).toBe("no time column found: name it, or give the sample interval in seconds");
+    expect(error.line).toBe(1);
+  });
+
+  it("no channel recognised", async () => {
+    const error = await rejection("time,CH1,CH2\n0,1,2\n0.001,3,4\n");
+    expect(error.problem).toMatch(/^no current, voltage or temperature column recognised among "time", "CH1", "CH2"/);
+    expect(error.line).toBe(1);
+  });
+
+  it("a single row cannot give a sample rate", async () => {
+    const error = await rejection("time,current\n0,1\n");
+    expect(error.problem).toBe("only one row of numbers: the sample rate needs at least two");
+    expect(error.line).toBe(2);
+  });
+
+  it("a missing file", async () => {
+    await expect(readCaptureFile(join(fixtures, "no-such-capture.csv"))).rejects.toMatchObject({
+      name: "CaptureError",
+      line: null,
+      message: expect.stringMatching(/^no such file: .*no-such-capture\.csv$/),
+    });
+  });
+});
