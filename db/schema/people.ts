@@ -13,6 +13,8 @@ export const users = pgTable(
     passwordHash: text("password_hash").notNull(),
     role: userRoleEnum("role").notNull().default("reader"),
     avatarKey: text("avatar_key"),
+    /** Comments from trusted readers skip the moderation queue; editors grant it. */
+    trustedCommenter: boolean("trusted_commenter").notNull().default(false),
   },
   (table) => [uniqueIndex("users_email_unique").on(table.email)],
 );

@@ -20,6 +20,11 @@ export const reports = pgTable(
     bodyMdx: text("body_mdx").notNull().default(""),
     disclosure: text("disclosure").notNull().default(""),
     submittedAt: timestamp("submitted_at", { withTimezone: true }),
+    /** The revision readers see; set by the editorial desk on approval. Not a foreign key: revisions reference reports. */
+    publishedRevisionId: uuid("published_revision_id"),
+    firstPublishedAt: timestamp("first_published_at", { withTimezone: true }),
+    retractedAt: timestamp("retracted_at", { withTimezone: true }),
+    retractionReason: text("retraction_reason"),
   },
   (table) => [uniqueIndex("reports_slug_unique").on(table.slug), index("reports_author_idx").on(table.authorId)],
 );
