@@ -20,7 +20,6 @@ import {
   estimatePowerFromCurrent,
   sumHalfCycles,
   tabulateHalfCycles,
-  wholeCycleSpan,
   type EstimatedPower,
   type Firing,
 } from "./half-cycles";
@@ -198,12 +197,12 @@ export function analyzeSamples(
 
   const boundaries = halfCycleBoundaries(mains.crossings, sampleRateHz, frequencyHz, current.length);
   const table = tabulateHalfCycles(current, voltage, boundaries);
-  const record = sumHalfCycles(table, 0, wholeCycleSpan(table));
+  const record = sumHalfCycles(table, 0, table.count);
   const conduction = classifyConduction(table, sampleRateHz);
   const conducting = sumHalfCycles(table, 0, table.count, conduction.conductingMask);
   const currentRecord = currentFigures(record, peakMagnitude(current));
   const currentRmsWhileConducting = conducting.count > 0 ? Math.sqrt(conducting.currentSquared / conducting.count) : null;
-  const wholeCycles = wholeCycleSpan(table) / 2;
+  const wholeCycles = table.count / 2;
   assumptions.push(
     `RMS, DC, real and apparent power are over the ${wholeCycles} whole cycles from the first half-cycle boundary ` +
       `(${round(wholeCycles / frequencyHz, 3)} s); peaks are over every sample.`,

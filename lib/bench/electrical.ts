@@ -98,8 +98,8 @@ export interface MainsFrequency {
 /**
  * Cycles are counted between successive rising crossings by rounding each
  * interval to whole periods, so the off gaps of a burst-fired current (no
- * crossings for many cycles) still count; frequency = cycles / time between
- * the first and last crossing.
+ * crossings for many cycles) still count; the period is the slope of crossing
+ * position against cycle number.
  */
 export function frequencyFromCrossings(crossings: ZeroCrossings, sampleRateHz: number): number | null {
   const rising = crossings.positions.filter((_, k) => crossings.directions[k] === 1);
@@ -111,11 +111,33 @@ export function frequencyFromCrossings(crossings: ZeroCrossings, sampleRateHz: n
   const oneCycle = intervals.filter((interval) => interval >= shortest && interval <= longest).sort((a, b) => a - b);
   if (oneCycle.length < MIN_RISING_CROSSINGS - 1) return null;
   const typical = oneCycle[Math.floor(oneCycle.length / 2)] as number;
-  let cycles = 0;
-  for (const interval of intervals) cycles += Math.round(interval / typical);
-  const span = (rising[rising.length - 1] as number) - (rising[0] as number);
-  if (cycles === 0 || span <= 0) return null;
-  const frequencyHz = (cycles / span) * sampleRateHz;
+  // Least-squares line through (cycle number, crossing position): every crossing's jitter averages out.
+  const cycleNumbers = [0];
+  for (const interval of intervals) cycleNumbers.push((cycleNumbers[cycleNumbers.length - 1] as number) + Math.round(interval / typical));
+  // A crossing that ends a gap is where a switched current steps up from zero, not where a sine passes through it: left out.
+  const fitted = rising.map((_, k) => k > 0 && (cycleNumbers[k] as number) - (cycleNumbers[k - 1] as number) === 1);
+  let count = 0;
+  let sumCycles = 0;
+  let sumPositions = 0;
+  for (let k = 0; k < rising.length; k++) {
+    if (!fitted[k]) continue;
+    count++;
+    sumCycles += cycleNumbers[k] as number;
+    sumPositions += rising[k] as number;
+  }
+  if (count < MIN_RISING_CROSSINGS - 1) return null;
+  const meanCycle = sumCycles / count;
+  const meanPosition = sumPositions / count;
+  let covariance = 0;
+  let variance = 0;
+  for (let k = 0; k < rising.length; k++) {
+    if (!fitted[k]) continue;
+    const dn = (cycleNumbers[k] as number) - meanCycle;
+    covariance += dn * ((rising[k] as number) - meanPosition);
+    variance += dn * dn;
+  }
+  if (variance === 0 || covariance <= 0) return null;
+  const frequencyHz = sampleRateHz / (covariance / variance);
   return frequencyHz >= PLAUSIBLE_MAINS_HZ.min && frequencyHz <= PLAUSIBLE_MAINS_HZ.max ? frequencyHz : null;
 }
 
@@ -146,7 +168,8 @@ export function measureMainsFrequency(input: {
  * of where the measured frequency puts it, and is placed by the frequency where
  * there is none (a blocked stretch of current). The boundaries follow the
  * supply's slow frequency drift through the crossings, which a single phase
- * from the start would not. Partial half-cycles at either end are left out.
+ * from the start would not. Partial half-cycles at either end are left out,
+ * and a last half-cycle that would leave a cycle unfinished.
  */
 export function halfCycleBoundaries(crossings: ZeroCrossings, sampleRateHz: number, frequencyHz: number, sampleCount: number): Float64Array {
   const halfPeriod = sampleRateHz / (2 * frequencyHz);
@@ -158,19 +181,37 @@ export function halfCycleBoundaries(crossings: ZeroCrossings, sampleRateHz: numb
   let next = 0;
   for (;;) {
     const expected = boundary + halfPeriod;
-    if (expected > sampleCount - 1) break;
+    if (expected > sampleCount - 0.5) break;
     while (next < positions.length && (positions[next] as number) < expected - tolerance) next++;
     const crossing = positions[next];
     boundary = crossing !== undefined && crossing <= expected + tolerance ? crossing : expected;
-    if (boundary > sampleCount - 1) break;
+    if (boundary > sampleCount - 0.5) break;
     boundaries.push(boundary);
   }
+  // Whole cycles only, so a record's DC and RMS never carry an odd half-cycle.
+  if (boundaries.length % 2 === 0) boundaries.pop();
   return Float64Array.from(boundaries);
 }
 
-/** Index of the first sample at or after a fractional boundary. */
-export function firstSampleAt(boundary: number): number {
-  return Math.max(0, Math.ceil(boundary));
+/**
+ * Samples inside the span [start, end) of fractional sample positions, each
+ * sample standing for the interval half a sample either side of it: samples
+ * first … last lie wholly inside, and the two cut by the span's ends count with
+ * the share of their interval inside it (leadWeight for sample first − 1,
+ * trailWeight for last + 1). Sums weighted so integrate over exactly the span,
+ * whole cycles included, however many samples a cycle holds.
+ */
+export interface SampleCells {
+  first: number;
+  last: number;
+  leadWeight: number;
+  trailWeight: number;
+}
+
+export function sampleCells(start: number, end: number): SampleCells {
+  const first = Math.ceil(start + 0.5);
+  const last = Math.floor(end - 0.5);
+  return { first, last, leadWeight: first - 0.5 - start, trailWeight: end - (last + 0.5) };
 }
 
 export function peakMagnitude(signal: Float64Array): number {

@@ -3,7 +3,7 @@
 // gap, how the controller fires (whole cycles or half-cycles, symmetric or
 // not), and the power while conducting apart from the mean over the record.
 
-import { firstSampleAt, type SampleSums } from "./electrical";
+import { sampleCells, type SampleSums } from "./electrical";
 
 /** A half-cycle conducts when its RMS current exceeds this share of the largest half-cycle RMS current. */
 export const CONDUCTING_SHARE_OF_LARGEST = 0.1;
@@ -27,7 +27,11 @@ export interface HalfCycleTable {
   product: Float64Array | null;
 }
 
-/** One pass over the samples between the first and last boundary, summing per half-cycle. */
+/**
+ * One pass over the samples between the first and last boundary, summing per
+ * half-cycle; a sample cut by a boundary is shared between the two half-cycles
+ * by the share of its interval on each side (see sampleCells).
+ */
 export function tabulateHalfCycles(current: Float64Array, voltage: Float64Array | null, boundaries: Float64Array): HalfCycleTable {
   const count = Math.max(0, boundaries.length - 1);
   const table: HalfCycleTable = {
@@ -40,22 +44,41 @@ export function tabulateHalfCycles(current: Float64Array, voltage: Float64Array 
     voltageSquared: voltage === null ? null : new Float64Array(count),
     product: voltage === null ? null : new Float64Array(count),
   };
+  const lastSample = current.length - 1;
   for (let j = 0; j < count; j++) {
-    const start = firstSampleAt(boundaries[j] as number);
-    const end = Math.min(current.length, firstSampleAt(boundaries[j + 1] as number));
+    const start = boundaries[j] as number;
+    const end = boundaries[j + 1] as number;
+    const { first, last, leadWeight, trailWeight } = sampleCells(start, end);
     let sumI = 0;
     let sumI2 = 0;
+    let sumV = 0;
+    let sumV2 = 0;
+    let sumVI = 0;
+    const edges: [number, number][] = [
+      [first - 1, leadWeight],
+      [last + 1, trailWeight],
+    ];
+    for (const [k, weight] of edges) {
+      if (k < 0 || k > lastSample || weight === 0) continue;
+      const i = current[k] as number;
+      sumI += weight * i;
+      sumI2 += weight * i * i;
+      if (voltage !== null) {
+        const v = voltage[k] as number;
+        sumV += weight * v;
+        sumV2 += weight * v * v;
+        sumVI += weight * v * i;
+      }
+    }
+    const to = Math.min(last, lastSample);
     if (voltage === null) {
-      for (let k = start; k < end; k++) {
+      for (let k = first; k <= to; k++) {
         const i = current[k] as number;
         sumI += i;
         sumI2 += i * i;
       }
     } else {
-      let sumV = 0;
-      let sumV2 = 0;
-      let sumVI = 0;
-      for (let k = start; k < end; k++) {
+      for (let k = first; k <= to; k++) {
         const i = current[k] as number;
         const v = voltage[k] as number;
         sumI += i;
@@ -88,11 +111,6 @@ export function sumHalfCycles(table: HalfCycleTable, from: number, to: number, i
     sums.product += table.product?.[j] ?? 0;
   }
   return sums;
-}
-
-/** Half-cycles 0 … 2m − 1: the whole cycles over which record figures are defined (RMS over whole cycles). */
-export function wholeCycleSpan(table: HalfCycleTable): number {
-  return table.count - (table.count % 2);
 }
 
 export function halfCycleRms(table: HalfCycleTable, j: number): number {

@@ -9,6 +9,8 @@
 // of their sample interval inside it; no resampling, and no leakage from the
 // fundamental into the harmonic bins.
 
+import { sampleCells } from "./electrical";
+
 export const MAX_HARMONIC_ORDER = 40;
 
 /** Orders run through Goertzel's recurrence together: eight independent chains keep the CPU's pipelines full. */
@@ -91,9 +93,8 @@ export function measureHarmonics(input: {
 
 /**
  * RMS value of each harmonic over the window [start, start + length) in sample
- * units, each sample standing for the interval half a sample either side of
- * it. Whole samples go through Goertzel's recurrence; the two cut samples are
- * added with their weights at their own phases.
+ * units (see sampleCells). Whole samples go through Goertzel's recurrence; the
+ * two cut samples are added with their weights at their own phases.
  */
 function windowSpectrum(
   signal: Float64Array,
@@ -105,10 +106,7 @@ function windowSpectrum(
   state: Float64Array,
   out: Float64Array,
 ): void {
-  const first = Math.ceil(start + 0.5);
-  const last = Math.floor(start + length - 0.5);
-  const leadWeight = first - 0.5 - start;
-  const trailWeight = start + length - (last + 0.5);
+  const { first, last, leadWeight, trailWeight } = sampleCells(start, start + length);
   const lead = first - 1 >= 0 ? (signal[first - 1] as number) * leadWeight : 0;
   const trail = last + 1 < signal.length ? (signal[last + 1] as number) * trailWeight : 0;
   const n = last - first + 1;
