@@ -263,6 +263,8 @@ export const toolPhotos = pgTable(
     /** Web sizes live at `${objectKeyPrefix}/${width}.webp`. */
     objectKeyPrefix: text("object_key_prefix").notNull(),
     widths: integer("widths").array().notNull(),
+    /** Heights of the renditions, in the order of `widths`, so pages can reserve the space before the image loads. */
+    heights: integer("heights").array().notNull().default([]),
     altText: text("alt_text").notNull(),
     uploadedById: uuid("uploaded_by_id").references(() => users.id, { onDelete: "set null" }),
   },

@@ -1,5 +1,5 @@
 import { relations } from "drizzle-orm";
-import { index, integer, jsonb, pgEnum, pgTable, real, text, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, index, integer, jsonb, pgEnum, pgTable, real, text, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { rowIdentity } from "./columns";
 
 export const toolCategoryEnum = pgEnum("tool_category", [
@@ -36,6 +36,8 @@ export const tools = pgTable(
     model: text("model").notNull(),
     category: toolCategoryEnum("category").notNull(),
     applianceType: applianceTypeEnum("appliance_type").notNull().default("heating"),
+    /** Combined appliances only: whether the motor takes more than half the rated power (picks the IEC 60335-1 row); null when not stated. */
+    motorShareAboveHalf: boolean("motor_share_above_half"),
     ratedPowerW: real("rated_power_w").notNull(),
     ratedVoltageMin: real("rated_voltage_min").notNull(),
     ratedVoltageMax: real("rated_voltage_max").notNull(),
