@@ -3,6 +3,7 @@ import type { z } from "zod";
 import type { ActionState } from "@/lib/action-state";
 import { actionAccess, type ActionKey } from "@/lib/authz";
 import { UserFacingError } from "@/lib/errors";
+import { echoableValues, fieldErrorsOf, formEntries } from "@/lib/form-data";
 import { checkAccess, type CurrentUser } from "@/lib/session";
 
 type UserFor<K extends ActionKey> = (typeof actionAccess)[K] extends "public" ? CurrentUser | null : CurrentUser;
@@ -26,12 +27,7 @@ export function guardedAction<K extends ActionKey, S extends z.ZodType>(
     }
     const parsed = schema.safeParse(formEntries(formData));
     if (!parsed.success) {
-      const fieldErrors: Record<string, string[]> = {};
-      for (const issue of parsed.error.issues) {
-        const field = issue.path.join(".") || "form";
-        (fieldErrors[field] ??= []).push(issue.message);
-      }
-      return { status: "error", message: "Some fields need attention.", fieldErrors, values: echoableValues(formData) };
+      return { status: "error", message: "Some fields need attention.", fieldErrors: fieldErrorsOf(parsed.error), values: echoableValues(formData) };
     }
     try {
       return (await body(parsed.data, decision.user as UserFor<K>, formData)) ?? { status: "ok" };
@@ -42,21 +38,4 @@ export function guardedAction<K extends ActionKey, S extends z.ZodType>(
       throw error;
     }
   };
-}
-
-// Secrets and files are never sent back to the browser.
-function echoableValues(formData: FormData): Record<string, string> {
-  const values: Record<string, string> = {};
-  for (const [name, value] of formData.entries()) {
-    if (typeof value === "string" && !name.startsWith("$ACTION") && !/password|token/i.test(name)) values[name] = value;
-  }
-  return values;
-}
-
-function formEntries(formData: FormData): Record<string, FormDataEntryValue> {
-  const entries: Record<string, FormDataEntryValue> = {};
-  for (const [name, value] of formData.entries()) {
-    if (!name.startsWith("$ACTION")) entries[name] = value;
-  }
-  return entries;
 }

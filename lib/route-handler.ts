@@ -3,6 +3,7 @@ import { NextResponse } from "next/server";
 import type { z } from "zod";
 import { routeHandlerAccess } from "@/lib/authz";
 import { UserFacingError } from "@/lib/errors";
+import { fieldErrorsOf } from "@/lib/form-data";
 import { checkAccess, type CurrentUser } from "@/lib/session";
 
 type RouteKey = keyof typeof routeHandlerAccess;
@@ -19,9 +20,7 @@ export async function handleRoute<S extends z.ZodType>(
 ): Promise<Response> {
   const parsed = schema.safeParse(input);
   if (!parsed.success) {
-    const fieldErrors: Record<string, string[]> = {};
-    for (const issue of parsed.error.issues) (fieldErrors[issue.path.join(".") || "request"] ??= []).push(issue.message);
-    return NextResponse.json({ error: { message: "Invalid request.", fieldErrors } }, { status: 422 });
+    return NextResponse.json({ error: { message: "Invalid request.", fieldErrors: fieldErrorsOf(parsed.error, "request") } }, { status: 422 });
   }
   const decision = await checkAccess(routeHandlerAccess[key]);
   if (!decision.allowed) {

@@ -1,4 +1,4 @@
-import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from "react";
+import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes, TextareaHTMLAttributes } from "react";
 
 type FieldErrors = Record<string, string[] | undefined> | undefined;
 type EchoedValues = Record<string, string> | undefined;
@@ -90,5 +90,67 @@ export function FormStatus({ status, message }: { status: string; message?: stri
     <p aria-live="polite" role="status" className={`min-h-5 text-sm ${status === "ok" ? "text-verdigris-deep" : "text-copper-deep"}`}>
       {status !== "idle" ? message : null}
     </p>
+  );
+}
+
+export function TextAreaField({
+  label,
+  name,
+  errors,
+  values,
+  hint,
+  ...textarea
+}: { label: string; name: string; errors?: FieldErrors; values?: EchoedValues; hint?: ReactNode } & TextareaHTMLAttributes<HTMLTextAreaElement>) {
+  const messages = errors?.[name];
+  const describedBy = [hint ? `${name}-hint` : null, messages?.length ? `${name}-error` : null].filter(Boolean).join(" ");
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={name} className="text-sm font-semibold text-ink">
+        {label}
+      </label>
+      <textarea
+        id={name}
+        name={name}
+        aria-invalid={messages?.length ? true : undefined}
+        aria-describedby={describedBy || undefined}
+        className="rounded border border-rule bg-paper-raised px-3 py-2 text-base text-ink aria-invalid:border-copper"
+        defaultValue={values?.[name]}
+        {...textarea}
+      />
+      {hint ? (
+        <p id={`${name}-hint`} className="text-xs text-ink-faint">
+          {hint}
+        </p>
+      ) : null}
+      <FieldError id={`${name}-error`} messages={messages} />
+    </div>
+  );
+}
+
+export function CheckboxField({
+  label,
+  name,
+  errors,
+  hint,
+  ...input
+}: { label: ReactNode; name: string; errors?: FieldErrors; hint?: ReactNode } & InputHTMLAttributes<HTMLInputElement>) {
+  const messages = errors?.[name];
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={input.id ?? name} className="flex items-start gap-2 text-sm text-ink">
+        <input
+          id={input.id ?? name}
+          name={name}
+          type="checkbox"
+          aria-invalid={messages?.length ? true : undefined}
+          aria-describedby={messages?.length ? `${input.id ?? name}-error` : undefined}
+          className="mt-1 size-4 accent-copper"
+          {...input}
+        />
+        <span>{label}</span>
+      </label>
+      {hint ? <p className="pl-6 text-xs text-ink-faint">{hint}</p> : null}
+      <FieldError id={`${input.id ?? name}-error`} messages={messages} />
+    </div>
   );
 }
