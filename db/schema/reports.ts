@@ -67,12 +67,17 @@ export const reportImages = pgTable(
     reportId: uuid("report_id")
       .notNull()
       .references(() => reports.id, { onDelete: "cascade" }),
+    /** What the MDX body calls it: <Figure image="name" />. */
+    name: text("name").notNull(),
     objectKey: text("object_key").notNull(),
     altText: text("alt_text").notNull(),
     width: integer("width").notNull(),
     height: integer("height").notNull(),
   },
-  (table) => [uniqueIndex("report_images_object_key_unique").on(table.objectKey)],
+  (table) => [
+    uniqueIndex("report_images_object_key_unique").on(table.objectKey),
+    uniqueIndex("report_images_name_unique").on(table.reportId, table.name),
+  ],
 );
 
 export const reportsRelations = relations(reports, ({ one, many }) => ({
