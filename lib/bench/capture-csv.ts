@@ -224,7 +224,8 @@ class CaptureReader {
 
   push(chunk: Uint8Array): void {
     if (chunk.length === 0) return;
-    let bytes = chunk;
+    // A plain Uint8Array view, whatever came in (Buffer or not), keeps the tokenizer's byte reads monomorphic.
+    let bytes = new Uint8Array(chunk.buffer, chunk.byteOffset, chunk.length);
     if (this.bytesSeen === 0) bytes = this.checkStart(bytes);
     this.bytesSeen += chunk.length;
 
