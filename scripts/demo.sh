@@ -37,6 +37,12 @@ if db_running; then db_was_running=true; fi
 db_started=true
 bash "$ROOT/scripts/db.sh" start
 
+# The seed uploads demo captures, so object storage must be up before it runs.
+fakes_log="$ROOT/.data/logs/fakes.log"
+start_service "fakes" "$fakes_log" node_modules/.bin/tsx scripts/fakes.ts
+wait_for_log_line "$(last_service_pid)" "$fakes_log" "fakes ready" 30 "the service fakes"
+say "$(grep -m1 'fakes ready' "$fakes_log")"
+
 say "migrating and seeding the database"
 npm run --silent db:migrate
 npm run --silent db:seed
@@ -48,13 +54,8 @@ else
   node_modules/.bin/next build
 fi
 
-fakes_log="$ROOT/.data/logs/fakes.log"
-start_service "fakes" "$fakes_log" node_modules/.bin/tsx scripts/fakes.ts
-wait_for_log_line "$(last_service_pid)" "$fakes_log" "fakes ready" 30 "the service fakes"
-say "$(grep -m1 'fakes ready' "$fakes_log")"
-
 if [[ -f "$ROOT/scripts/worker.ts" ]]; then
-  start_service "worker" - node_modules/.bin/tsx scripts/worker.ts
+  start_service "worker" - node_modules/.bin/tsx --conditions=react-server scripts/worker.ts
 fi
 
 start_service "app" - node_modules/.bin/next start -p "$PORT"

@@ -35,16 +35,17 @@ db_started=true
 bash "$ROOT/scripts/db.sh" start
 bash "$ROOT/scripts/db.sh" reset benchplate_test
 
-say "migrating and seeding benchplate_test"
-npm run --silent db:migrate || fail "migration of the test database failed"
-npm run --silent db:seed || fail "seeding the test database failed"
-
 logs="$ROOT/.data/test/logs"
 rm -rf "$S3_DATA_DIR" "$MAIL_DATA_DIR" "$logs"
 mkdir -p "$logs"
 
+# The seed uploads demo captures, so object storage must be up before it runs.
 start_service "fakes" "$logs/fakes.log" node_modules/.bin/tsx scripts/fakes.ts
 wait_for_log_line "$(last_service_pid)" "$logs/fakes.log" "fakes ready" 30 "the service fakes"
+
+say "migrating and seeding benchplate_test"
+npm run --silent db:migrate || fail "migration of the test database failed"
+npm run --silent db:seed || fail "seeding the test database failed"
 
 results=()
 failed=0
@@ -69,6 +70,9 @@ say "── build ──"
 export NEXT_DIST_DIR=.next-test
 if node_modules/.bin/next build; then
   record build ok
+  # The browser tests wait for analyses, which only the worker runs.
+  start_service "worker" "$logs/worker.log" node_modules/.bin/tsx --conditions=react-server scripts/worker.ts
+  wait_for_log_line "$(last_service_pid)" "$logs/worker.log" "worker ready" 30 "the worker"
   start_service "app" "$logs/app.log" node_modules/.bin/next start -p "$PORT"
   # In a subshell, so an app that never answers fails this stage instead of ending the run before the summary.
   if (wait_for_http "$(last_service_pid)" "$E2E_BASE_URL/" 60 "the app" "$logs/app.log"); then

@@ -1,0 +1,138 @@
+import "server-only";
+import { z } from "zod";
+import { db } from "@/db";
+import { claimAnalysis, completeAnalysis, failAnalysis } from "@/db/queries/captures";
+import { insertMeasurements } from "@/db/queries/runs";
+import type { DisplaySeries } from "@/db/schema";
+import type { StoredAnalysisOptions } from "@/lib/analysis-options";
+import { analysisOptionsSchema, analyzeCapture } from "@/lib/bench/analysis";
+import { CaptureError, readCapture, type CaptureData } from "@/lib/bench/capture-csv";
+import { halfCycleSeries, thinSeries, waveformEnvelope } from "@/lib/bench/display-series";
+import type { AnalyseCaptureJob } from "@/lib/jobs";
+import { getObjectStream } from "@/lib/object-storage";
+import { analyzeHeatUpLog, measurementsFromHeatUp, measurementsFromWaveform, type MeasurementDraft } from "@/lib/run-measurements";
+
+/** The object's bytes chunk by chunk; the download is cancelled if the reader stops early (a rejected capture). */
+async function* storedChunks(objectKey: string): AsyncGenerator<Uint8Array> {
+  const stream = await getObjectStream(objectKey);
+  if (stream === null) throw new CaptureError("the uploaded file is missing from storage; upload the capture again", null);
+  const reader = stream.getReader();
+  let finished = false;
+  try {
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) {
+        finished = true;
+        return;
+      }
+      yield value;
+    }
+  } finally {
+    if (!finished) await reader.cancel().catch(() => undefined);
+    reader.releaseLock();
+  }
+}
+
+type Outcome = { analysisVersion: string; result: object; displaySeries: DisplaySeries; drafts: MeasurementDraft[] };
+
+async function analyseWaveform(
+  options: Extract<StoredAnalysisOptions, { kind: "waveform" }>,
+  source: () => CaptureData,
+  sizeBytes: number,
+): Promise<Outcome> {
+  // The same call as `npm run analyze -- FILE --json`, so the stored result is the CLI's object for the same file.
+  const result = await analyzeCapture({ data: source(), sizeBytes }, options.analysis);
+  // A second pass for the charts: analyzeCapture keeps no samples, and re-reading costs far less than the analysis.
+  const parsed = analysisOptionsSchema.parse(options.analysis);
+  const samples = await readCapture(source(), {
+    current: parsed.current,
+    voltage: parsed.voltage,
+    temperature: null,
+    time: parsed.time,
+    sampleIntervalSeconds: parsed.sampleIntervalSeconds,
+    sizeHintBytes: sizeBytes,
+  });
+  const current = samples.current as Float64Array;
+  return {
+    analysisVersion: result.analysisVersion,
+    result,
+    displaySeries: {
+      waveform: waveformEnvelope({ current, voltage: samples.voltage, sampleRateHz: samples.sampleRateHz }),
+      halfCycles: halfCycleSeries({ current, voltage: samples.voltage, sampleRateHz: samples.sampleRateHz, nominalHz: result.nominalFrequencyHz }),
+    },
+    drafts: measurementsFromWaveform(result, options.analysis),
+  };
+}
+
+async function analyseHeatUpLog(
+  options: Extract<StoredAnalysisOptions, { kind: "heat_up_log" }>,
+  source: () => CaptureData,
+  sizeBytes: number,
+): Promise<Outcome> {
+  const { heatUp } = options;
+  const capture = await readCapture(source(), {
+    current: null,
+    voltage: null,
+    temperature: heatUp.temperature,
+    time: heatUp.time,
+    sampleIntervalSeconds: heatUp.sampleIntervalSeconds,
+    sizeHintBytes: sizeBytes,
+  });
+  const result = analyzeHeatUpLog(capture, heatUp);
+  const temperature = capture.temperature as Float64Array;
+  return {
+    analysisVersion: result.analysisVersion,
+    result,
+    displaySeries: {
+      heatUp: {
+        timeS: thinSeries(Array.from(temperature, (_, k) => k / capture.sampleRateHz)),
+        temperatureC: thinSeries(temperature),
+        setpointC: heatUp.setpointC,
+      },
+    },
+    drafts: measurementsFromHeatUp(result),
+  };
+}
+
+/** What a reviewer is shown when an analysis fails: the problem and, for a bad capture, the line at fault. */
+export function describeAnalysisFailure(error: unknown): { message: string; line: number | null } {
+  if (error instanceof CaptureError) return { message: error.problem, line: error.line };
+  if (error instanceof z.ZodError) return { message: error.issues.map((issue) => `${issue.path.join(".")}: ${issue.message}`).join("; "), line: null };
+  return { message: error instanceof Error ? error.message : String(error), line: null };
+}
+
+class AlreadyFinished extends Error {}
+
+/**
+ * The worker's job: analyse one capture under one analysis row's options, then store the result, the chart series
+ * and the run's measurements in one transaction. A capture the analysis rejects ends as a failed row with the message
+ * and line; only a failure to record either outcome is thrown, so the queue retries the job.
+ */
+export async function runCaptureAnalysis({ analysisId }: AnalyseCaptureJob): Promise<"done" | "failed" | "skipped"> {
+  const claimed = await claimAnalysis({ id: analysisId });
+  if (claimed === null) return "skipped";
+  const { options, capture } = claimed;
+  let outcome: Outcome;
+  try {
+    if (capture.status !== "uploaded") throw new CaptureError("the capture's upload was never completed", null);
+    const source = () => storedChunks(capture.objectKey);
+    outcome =
+      options.kind === "waveform"
+        ? await analyseWaveform(options, source, capture.declaredBytes)
+        : await analyseHeatUpLog(options, source, capture.declaredBytes);
+  } catch (error) {
+    await failAnalysis({ id: analysisId, error: describeAnalysisFailure(error) });
+    return "failed";
+  }
+  try {
+    await db.transaction(async (tx) => {
+      const stored = await completeAnalysis(tx, { id: analysisId, ...outcome });
+      if (!stored) throw new AlreadyFinished();
+      await insertMeasurements(tx, { runId: capture.runId, source: { analysisId }, drafts: outcome.drafts });
+    });
+  } catch (error) {
+    if (error instanceof AlreadyFinished) return "skipped";
+    throw error;
+  }
+  return "done";
+}
