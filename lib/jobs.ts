@@ -6,12 +6,15 @@ import { serverEnv } from "@/lib/env";
 export const queues = {
   analyseCapture: "analyse-capture",
   cleanUpUploads: "clean-up-uploads",
+  deliverMail: "deliver-mail",
 } as const;
 
 // "short" keeps one waiting job per singleton key, so an analysis queued twice is worked once.
 const queuePolicies: Record<(typeof queues)[keyof typeof queues], PgBoss.QueuePolicy> = {
   "analyse-capture": "short",
   "clean-up-uploads": "singleton",
+  // One run waiting and one running: wake-ups during a run queue exactly one more, a burst of them collapses into it.
+  "deliver-mail": "stately",
 };
 
 export type AnalyseCaptureJob = { analysisId: string };
@@ -51,4 +54,10 @@ function jobSender(): Promise<PgBoss> {
 export async function enqueueAnalysis(job: AnalyseCaptureJob): Promise<void> {
   const boss = await jobSender();
   await boss.send(queues.analyseCapture, job, { singletonKey: job.analysisId, retryLimit: 2, retryDelay: 5, expireInMinutes: 20 });
+}
+
+/** Wakes the mail sender after an outbox write committed; the singleton key folds many wake-ups into one run. */
+export async function requestMailDelivery(): Promise<void> {
+  const boss = await jobSender();
+  await boss.send(queues.deliverMail, {}, { singletonKey: queues.deliverMail, retryLimit: 0, expireInMinutes: 10 });
 }

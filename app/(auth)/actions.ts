@@ -15,8 +15,8 @@ import {
 import { signIn, signOut } from "@/lib/auth";
 import { UserFacingError } from "@/lib/errors";
 import { guardedAction } from "@/lib/guarded-action";
-import { sendMail } from "@/lib/mail";
 import { passwordResetMail, welcomeMail } from "@/lib/mail-templates";
+import { deliverMailNow, enqueueMail } from "@/lib/outbox";
 import { hashPassword } from "@/lib/passwords";
 import { passwordResetRequestSchema, passwordResetSchema, signInSchema, signUpSchema } from "@/lib/validations/account";
 
@@ -52,16 +52,18 @@ export const signInWithPassword = guardedAction(
 
 export const signUpReader = guardedAction("(auth)/actions.ts#signUpReader", signUpSchema, async ({ name, email, password }) => {
   const passwordHash = await hashPassword(password);
-  const reader = await db.transaction((tx) => insertReader(tx, { name, email, passwordHash }));
-  if (!reader) {
+  const queued = await db.transaction(async (tx) => {
+    const reader = await insertReader(tx, { name, email, passwordHash });
+    if (!reader) return null;
+    return enqueueMail(tx, { topic: "account", dedupeKey: `welcome:${reader.id}`, recipientId: reader.id, toAddress: email, ...welcomeMail({ name }) });
+  });
+  if (!queued) {
     throw new UserFacingError("An account with this e-mail already exists.", 409, {
       email: ["An account with this e-mail already exists. Sign in or reset the password."],
     });
   }
-  // The account exists once committed; a mail outage must not turn a finished sign-up into an error.
-  await sendMail({ to: email, ...welcomeMail({ name }) }).catch((error: unknown) => {
-    console.error("welcome mail not sent", error);
-  });
+  // The account and its welcome are committed together; a mail outage only delays the welcome, it never fails the sign-up.
+  await deliverMailNow([queued.id]);
   await signIn("credentials", { email, password, redirectTo: "/account" });
 });
 
@@ -72,12 +74,18 @@ export const requestPasswordReset = guardedAction(
     const user = await getUserByEmail({ email });
     if (user) {
       const token = randomBytes(32).toString("base64url");
-      await insertPasswordResetToken({
-        userId: user.id,
-        tokenHash: hashResetToken(token),
-        expiresAt: new Date(Date.now() + resetLinkMinutes * 60_000),
+      const tokenHash = hashResetToken(token);
+      const queued = await db.transaction(async (tx) => {
+        await insertPasswordResetToken(tx, { userId: user.id, tokenHash, expiresAt: new Date(Date.now() + resetLinkMinutes * 60_000) });
+        return enqueueMail(tx, {
+          topic: "account",
+          dedupeKey: `password-reset:${tokenHash}`,
+          recipientId: user.id,
+          toAddress: user.email,
+          ...passwordResetMail({ name: user.name, token, validMinutes: resetLinkMinutes }),
+        });
       });
-      await sendMail({ to: user.email, ...passwordResetMail({ name: user.name, token, validMinutes: resetLinkMinutes }) });
+      if (queued) await deliverMailNow([queued.id]);
     }
     // The same answer whether or not the account exists, so the form cannot be used to find accounts.
     return { status: "ok", message: "If an account uses that address, a reset link is on its way." };

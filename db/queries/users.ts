@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, count, eq, gt, isNull, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
-import { passwordResetTokens, signInAttempts, users, type UserRole } from "@/db/schema";
+import { passwordResetTokens, reports, signInAttempts, testRuns, users, type UserRole } from "@/db/schema";
 
 /** Columns safe to hand to pages: never the password hash. */
 const publicUserColumns = {
@@ -47,9 +47,12 @@ export async function listAccounts() {
   return db.select({ ...publicUserColumns, createdAt: users.createdAt }).from(users).orderBy(asc(users.name));
 }
 
+/** Returns the role the account had before, for the audit log; null when the account does not exist. */
 export async function updateUserRole(tx: Transaction, { userId, role }: { userId: string; role: UserRole }) {
-  const [row] = await tx.update(users).set({ role }).where(eq(users.id, userId)).returning({ id: users.id });
-  return row ?? null;
+  const [previous] = await tx.select({ role: users.role }).from(users).where(eq(users.id, userId)).for("update");
+  if (!previous) return null;
+  await tx.update(users).set({ role }).where(eq(users.id, userId));
+  return { id: userId, previousRole: previous.role };
 }
 
 /** Serialises role changes so concurrent demotions cannot together remove the last admin. */
@@ -72,16 +75,11 @@ export async function updateUserPassword(tx: Transaction, { userId, passwordHash
   await tx.update(users).set({ passwordHash }).where(eq(users.id, userId));
 }
 
-export async function insertPasswordResetToken({
-  userId,
-  tokenHash,
-  expiresAt,
-}: {
-  userId: string;
-  tokenHash: string;
-  expiresAt: Date;
-}) {
-  await db.insert(passwordResetTokens).values({ userId, tokenHash, expiresAt });
+export async function insertPasswordResetToken(
+  tx: Transaction,
+  { userId, tokenHash, expiresAt }: { userId: string; tokenHash: string; expiresAt: Date },
+) {
+  await tx.insert(passwordResetTokens).values({ userId, tokenHash, expiresAt });
 }
 
 /** Marks the token used in the same statement that finds it, so two concurrent uses cannot both succeed. */
@@ -128,4 +126,22 @@ export async function countRecentSignInFailures({
     db.select({ value: count() }).from(signInAttempts).where(failuresWhere(signInAttempts.clientAddress, clientAddress)),
   ]);
   return { byAccount: byAccount?.value ?? 0, byAddress: byAddress?.value ?? 0 };
+}
+
+/** Bench runs and reports keep their author: an account that wrote any cannot simply disappear. */
+export async function countAuthoredWork(tx: Transaction, { userId }: { userId: string }) {
+  const [[runs], [authored]] = await Promise.all([
+    tx.select({ value: count() }).from(testRuns).where(eq(testRuns.reviewerId, userId)),
+    tx.select({ value: count() }).from(reports).where(eq(reports.authorId, userId)),
+  ]);
+  return { runs: runs?.value ?? 0, reports: authored?.value ?? 0 };
+}
+
+/**
+ * Deletes the account row. The schema does the rest: comments, requests and log entries keep their rows with the
+ * person's reference set to null, memberships and reset tokens go with it. Returns the avatar's object key for removal.
+ */
+export async function deleteUser(tx: Transaction, { userId }: { userId: string }) {
+  const [row] = await tx.delete(users).where(eq(users.id, userId)).returning({ avatarKey: users.avatarKey });
+  return row ?? null;
 }

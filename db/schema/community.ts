@@ -1,3 +1,4 @@
+import { randomBytes } from "node:crypto";
 import { relations } from "drizzle-orm";
 import { boolean, index, integer, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid, type AnyPgColumn } from "drizzle-orm/pg-core";
 import { tools } from "./catalogue";
@@ -68,7 +69,10 @@ export const notificationPreferences = pgTable("notification_preferences", {
   decisions: boolean("decisions").notNull().default(true),
   moderation: boolean("moderation").notNull().default(true),
   requestUpdates: boolean("request_updates").notNull().default(true),
-  unsubscribeToken: text("unsubscribe_token").notNull(),
+  /** Lets the link in a notification switch a topic off without signing in, so it must not be guessable. */
+  unsubscribeToken: text("unsubscribe_token")
+    .notNull()
+    .$defaultFn(() => randomBytes(24).toString("base64url")),
   updatedAt: timestamp("updated_at", { withTimezone: true })
     .notNull()
     .defaultNow()

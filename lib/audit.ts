@@ -1,0 +1,48 @@
+import "server-only";
+import { z } from "zod";
+import type { Transaction } from "@/db";
+import { insertAuditEntry } from "@/db/queries/audit";
+
+/**
+ * What the audit log records, with the label the log page shows. Editorial and moderation actions join this list as
+ * they are built; every entry is written inside the transaction of the change it records, so a change that rolls back
+ * leaves no entry and no committed change lacks one.
+ */
+export const auditActionLabels = {
+  "user.role_changed": "Role changed",
+  "account.deleted": "Account deleted",
+  "request.status_changed": "Request status changed",
+  "request.merged": "Request merged into another",
+} as const satisfies Record<string, string>;
+
+export type AuditAction = keyof typeof auditActionLabels;
+
+export const auditSubjectLabels = {
+  user: "Account",
+  measurement_request: "Measurement request",
+  report: "Report",
+  comment: "Comment",
+} as const satisfies Record<string, string>;
+
+export type AuditSubjectType = keyof typeof auditSubjectLabels;
+
+export const auditLogQuerySchema = z.object({
+  action: z
+    .string()
+    .refine((value): value is AuditAction => Object.hasOwn(auditActionLabels, value), "Unknown action filter.")
+    .optional(),
+  page: z.coerce.number().int().min(1).max(100_000).default(1),
+});
+
+export async function recordAudit(
+  tx: Transaction,
+  {
+    actorId,
+    action,
+    subjectType,
+    subjectId,
+    details = {},
+  }: { actorId: string | null; action: AuditAction; subjectType: AuditSubjectType; subjectId: string | null; details?: Record<string, unknown> },
+) {
+  return insertAuditEntry(tx, { actorId, action, subjectType, subjectId, details });
+}
