@@ -78,12 +78,6 @@ const flagsSchema = z
     } else if (flags["rated-voltage"] === undefined) {
       context.addIssue({ code: "custom", message: "--rated-power needs --rated-voltage (V or VMIN-VMAX)" });
     }
-    if (flags["current-scale"] !== undefined && flags.current === undefined) {
-      context.addIssue({ code: "custom", message: "--current-scale needs --current to say which column it scales" });
-    }
-    if (flags["voltage-scale"] !== undefined && flags.voltage === undefined) {
-      context.addIssue({ code: "custom", message: "--voltage-scale needs --voltage to say which column it scales" });
-    }
   });
 
 type Flags = z.output<typeof flagsSchema>;
@@ -132,12 +126,17 @@ function readFlags(argv: string[]): Flags {
   return result.data;
 }
 
+/** A scale without a column applies to the column found by name. */
+function channel(column: string | number | undefined, scale: number | undefined) {
+  return column === undefined && scale === undefined ? undefined : { column, scale: scale ?? 1 };
+}
+
 function toOptions(flags: Flags): AnalysisOptions {
   const ratedPowerW = flags["rated-power"];
   const ratedVoltage = flags["rated-voltage"];
   return {
-    current: flags.current === undefined ? undefined : { column: flags.current, scale: flags["current-scale"] ?? 1 },
-    voltage: flags.voltage === undefined ? undefined : { column: flags.voltage, scale: flags["voltage-scale"] ?? 1 },
+    current: channel(flags.current, flags["current-scale"]),
+    voltage: channel(flags.voltage, flags["voltage-scale"]),
     time: flags.time,
     sampleIntervalSeconds: flags["sample-interval"],
     nominalVoltage: flags["nominal-voltage"],

@@ -15,6 +15,7 @@ import {
 } from "./electrical";
 import { estimateFlicker, type FlickerResult } from "./flicker";
 import {
+  CONDUCTING_FLOOR_AMPS,
   CONDUCTING_SHARE_OF_LARGEST,
   classifyConduction,
   estimatePowerFromCurrent,
@@ -32,7 +33,8 @@ export const ANALYSIS_VERSION = "1.0.0";
 
 const columnRef = z.union([z.string().trim().min(1), z.number().int().positive()]);
 const channel = z.object({
-  column: columnRef,
+  /** Omitted: found by name, so a scale can be given for a column found that way. */
+  column: columnRef.optional(),
   scale: z
     .number()
     .refine((scale) => scale !== 0, "scale must not be 0")
@@ -51,7 +53,7 @@ const accuracy = z.union([
 ]);
 
 export const analysisOptionsSchema = z.object({
-  /** Omitted: a column named like current (current, I, amps) or the only channel there is. */
+  /** Omitted: a column named like current (current, I, amps), or the only channel there is. */
   current: channel.optional(),
   /** Omitted: a column named like voltage (voltage, V, U) if there is one; null: none. */
   voltage: channel.nullable().optional(),
@@ -209,7 +211,8 @@ export function analyzeSamples(
     `Mains frequency ${round(frequencyHz, 4)} Hz from the ${mains.source === "nominal" ? "nominal value" : `${mains.source}'s zero crossings`}; ` +
       "half-cycle boundaries at the zero crossings, placed by that frequency where there are none.",
     `A half-cycle conducts when its RMS current exceeds ${CONDUCTING_SHARE_OF_LARGEST * 100} % of the largest half-cycle RMS current ` +
-      `(${round(conduction.thresholdAmps, 4)} A); partial conduction within a half-cycle (phase-angle control) counts as conducting.`,
+      `and ${CONDUCTING_FLOOR_AMPS * 1000} mA (here ${round(conduction.thresholdAmps, 4)} A); partial conduction within a half-cycle ` +
+      "(phase-angle control) counts as conducting.",
   );
 
   let voltageReport: CaptureAnalysis["voltage"] = null;

@@ -29,7 +29,8 @@ export class CaptureError extends Error {
 export type ColumnRef = string | number;
 
 export interface ChannelMapping {
-  column: ColumnRef;
+  /** Omitted: found by name, as when the whole mapping is omitted. */
+  column?: ColumnRef;
   /** Multiplies the column into amperes, volts or °C: a 100 mV/A clamp read in volts is 10. */
   scale: number;
 }
@@ -473,12 +474,10 @@ class CaptureReader {
     const channel = (quantity: Quantity): number | null => {
       const mapping = options[quantity];
       if (mapping === null) return null;
-      if (mapping !== undefined) {
-        if (!Number.isFinite(mapping.scale) || mapping.scale === 0) {
-          throw new CaptureError(`the ${quantity} scale must be a finite, non-zero number, got ${mapping.scale}`, null);
-        }
-        return take(mapping.column, quantity);
+      if (mapping !== undefined && (!Number.isFinite(mapping.scale) || mapping.scale === 0)) {
+        throw new CaptureError(`the ${quantity} scale must be a finite, non-zero number, got ${mapping.scale}`, null);
       }
+      if (mapping?.column !== undefined) return take(mapping.column, quantity);
       const found = detect(NAME_PATTERNS[quantity]);
       if (found !== null) used.set(found, quantity);
       return found;
@@ -487,7 +486,7 @@ class CaptureReader {
     const voltage = channel("voltage");
     const temperature = channel("temperature");
     // A two-column capture (time and one channel) is a current capture unless told otherwise.
-    if (current === null && options.current === undefined && voltage === null && temperature === null) {
+    if (current === null && options.current?.column === undefined && voltage === null && temperature === null) {
       const free = this.columns.map((_, k) => k).filter((k) => !used.has(k));
       if (free.length === 1 && free[0] !== undefined) {
         current = free[0];

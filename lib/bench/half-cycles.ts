@@ -5,8 +5,15 @@
 
 import { sampleCells, type SampleSums } from "./electrical";
 
-/** A half-cycle conducts when its RMS current exceeds this share of the largest half-cycle RMS current. */
+/** A half-cycle conducts when its RMS current exceeds this share of the largest half-cycle RMS current… */
 export const CONDUCTING_SHARE_OF_LARGEST = 0.1;
+
+/**
+ * …and this floor, so that a capture of a tool that never switched on does not
+ * read its clamp's noise as conduction. 10 mA is 2.3 W at 230 V, below any
+ * heating element.
+ */
+export const CONDUCTING_FLOOR_AMPS = 0.01;
 
 /**
  * Conducting positive and negative half-cycles differing by more than this
@@ -148,13 +155,13 @@ export function classifyConduction(table: HalfCycleTable, sampleRateHz: number):
   const { count, boundaries } = table;
   let largest = 0;
   for (let j = 0; j < count; j++) largest = Math.max(largest, halfCycleRms(table, j));
-  const thresholdAmps = CONDUCTING_SHARE_OF_LARGEST * largest;
+  const thresholdAmps = Math.max(CONDUCTING_FLOOR_AMPS, CONDUCTING_SHARE_OF_LARGEST * largest);
   const mask = new Uint8Array(count);
   let conducting = 0;
   let positiveConducting = 0;
   let negativeConducting = 0;
   for (let j = 0; j < count; j++) {
-    if (largest > 0 && halfCycleRms(table, j) > thresholdAmps) {
+    if (halfCycleRms(table, j) > thresholdAmps) {
       mask[j] = 1;
       conducting++;
       // The voltage's sign says which half of the cycle it is; without voltage the current's own sign does.

@@ -99,6 +99,11 @@ describe("reading captures", () => {
     expect(named.mapping).toMatchObject({ time: "Time [s]", current: "Current (A)", voltage: "Voltage (V)" });
   });
 
+  it("applies a scale given without a column to the column found by name", async () => {
+    const capture = await readCapture("time,Current (V)\n0,0.25\n0.001,0.5\n", { current: { scale: 10 } });
+    expect(Array.from(capture.current ?? [])).toEqual([2.5, 5]);
+  });
+
   it("accepts timestamps with a zone offset and keeps sub-millisecond steps", async () => {
     const capture = await readCapture(
       "timestamp,current\n2025-01-01T00:59:59.9999+01:00,1\n2025-01-01T00:00:00.0000Z,2\n2025-01-01T00:00:00.0001Z,3\n",

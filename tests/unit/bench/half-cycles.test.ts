@@ -83,6 +83,15 @@ describe("half-cycle firing", () => {
   });
 });
 
+describe("a tool that never switched on", () => {
+  it("reads a clamp's noise as no conduction at all", () => {
+    const noise = addNoise(new Float64Array(20_000), 0.004);
+    const result = analyzeSamples({ current: noise, voltage: mainsVoltage(mains, 230), sampleRateHz: mains.sampleRateHz }, {});
+    expect(result.halfCycles).toMatchObject({ firing: "none", conducting: 0, duty: 0 });
+    expect(result.power?.whileConducting).toBeNull();
+  });
+});
+
 describe("power estimated from current", () => {
   it("takes the load as the resistance that draws the conducting current at the nominal voltage", () => {
     const estimate = estimatePowerFromCurrent({ nominalVoltage: 230, currentRmsWhileConducting: 4, currentRmsRecord: 2 });
