@@ -148,7 +148,8 @@ const LOWER_E = 101;
 const MAX_HEADER_LINES = 10_000;
 const MAX_LINE_BYTES = 1 << 20;
 const INITIAL_CAPACITY = 1 << 16;
-const MAX_SIGNIFICANT_DIGITS = 15;
+/** Any 15 decimal digits fit a double's 53-bit mantissa exactly; longer numbers take the slow path. */
+const FAST_PATH_DIGITS = 15;
 
 // Roles of a column in a data row. TIME_TIMESTAMP is parsed on a slow path: loggers that write timestamps are slow loggers.
 const SKIP = -1;
@@ -651,7 +652,7 @@ class CaptureReader {
           }
           // Exact when the digits fit 2^53 and |exponent| ≤ 22: one correctly rounded multiply or divide.
           let value: number;
-          if (digits > MAX_SIGNIFICANT_DIGITS || exponent > 22 || exponent < -22) {
+          if (digits > FAST_PATH_DIGITS || exponent > 22 || exponent < -22) {
             value = slowNumber(bytes, numberStart, numberEnd);
             if (!Number.isFinite(value)) {
               this.line = line;
