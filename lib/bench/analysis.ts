@@ -153,6 +153,7 @@ export async function analyzeCapture(source: CaptureSource, options: AnalysisOpt
     time: parsed.time,
     sampleIntervalSeconds: parsed.sampleIntervalSeconds,
     mains: { frequencyHz: nominalHz, minWholeCycles: harmonicWindowCycles(nominalHz) },
+    required: ["current" as const],
   };
   const started = performance.now();
   const capture =

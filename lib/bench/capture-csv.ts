@@ -50,6 +50,8 @@ export interface CaptureReadOptions {
   mains?: { frequencyHz: number; minWholeCycles: number };
   /** Expected size in bytes, so the arrays are sized once instead of grown. */
   sizeHintBytes?: number;
+  /** Quantities the caller cannot do without: missing, the capture is turned away at its header, not after its last row. */
+  required?: Quantity[];
 }
 
 export interface HeaderEntry {
@@ -115,7 +117,7 @@ export async function readCaptureFile(path: string, options: CaptureReadOptions 
   }
 }
 
-/** Whole cycles a capture holds at a frequency (the analysis counts only whole cycles). */
+/** Rejects a capture holding fewer whole cycles at `frequencyHz` than the analysis needs (it counts only whole cycles). */
 export function assertEnoughCycles(sampleCount: number, sampleRateHz: number, frequencyHz: number, minWholeCycles: number): void {
   const cycles = Math.floor((sampleCount / sampleRateHz) * frequencyHz + 1e-9);
   if (cycles < minWholeCycles) {
@@ -261,7 +263,7 @@ class CaptureReader {
     if (!this.sawContent) throw new CaptureError("empty file: there is nothing to read", null);
     if (!this.inData) {
       throw new CaptureError(
-        "header without rows: no row of numbers follows the header (is the capture cut short, or saved as a screenshot of the settings only?)",
+        "header without rows: no row of numbers follows the header (was the export cut short, or are the samples in another file?)",
         this.lastHeaderLine,
       );
     }
@@ -351,8 +353,8 @@ class CaptureReader {
   private process(bytes: Uint8Array, start: number, end: number): void {
     let p = start;
     while (!this.inData && p < end) {
-      let lineEnd = bytes.indexOf(LF, p);
-      if (lineEnd < 0 || lineEnd >= end) lineEnd = end - 1;
+      // Only complete lines come in, so a line feed is always found before `end`.
+      const lineEnd = bytes.indexOf(LF, p);
       this.line++;
       const text = Buffer.from(bytes.buffer, bytes.byteOffset + p, lineEnd - p).toString("utf8").replace(/\r$/, "");
       if (this.headerLine(text)) {
@@ -492,6 +494,15 @@ class CaptureReader {
       if (free.length === 1 && free[0] !== undefined) {
         current = free[0];
         used.set(current, "current");
+      }
+    }
+    const found = { current, voltage, temperature };
+    for (const quantity of options.required ?? []) {
+      if (found[quantity] === null) {
+        throw new CaptureError(
+          `no ${quantity} column recognised among ${this.columns.map((n) => `"${n}"`).join(", ")}: name it (by column name or 1-based number)`,
+          namesLine,
+        );
       }
     }
     if (current === null && voltage === null && temperature === null) {

@@ -255,6 +255,12 @@ describe("rejected captures name the problem and the line", () => {
     expect(error.line).toBe(1);
   });
 
+  it("no column for a quantity the caller requires", async () => {
+    const error = await rejection("time,voltage\n0,1\n0.001,2\n", { required: ["current"] });
+    expect(error.problem).toBe('no current column recognised among "time", "voltage": name it (by column name or 1-based number)');
+    expect(error.line).toBe(1);
+  });
+
   it("a single row cannot give a sample rate", async () => {
     const error = await rejection("time,current\n0,1\n");
     expect(error.problem).toBe("only one row of numbers: the sample rate needs at least two");
