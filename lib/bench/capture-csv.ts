@@ -268,7 +268,6 @@ class CaptureReader {
       );
     }
     const rows = this.rows;
-    if (rows === 0) throw new CaptureError("header without rows: the column names are followed by no numbers", this.firstDataLine);
 
     let sampleRateHz: number;
     if (this.hasTime) {

@@ -267,6 +267,45 @@ describe("rejected captures name the problem and the line", () => {
     expect(error.line).toBe(2);
   });
 
+  it("binary data: a line longer than 1 MiB", async () => {
+    const error = await rejection(`time,current\n0,1\n${"9".repeat(1.5 * 2 ** 20)}`);
+    expect(error.problem).toBe("binary data: a line longer than 1 MiB, so the file is not a CSV capture");
+    expect(error.line).toBe(3);
+  });
+
+  it("binary data: a carriage return inside a row, or control bytes in a number", async () => {
+    const carriage = await rejection("time,current\n0,1\n0.001,2\r3\n");
+    expect(carriage.problem).toBe("binary data: a carriage return inside a row");
+    expect(carriage.line).toBe(3);
+    const control = await rejection("time,current\n0,1\n0.001,2\x01\n");
+    expect(control.problem).toBe('binary data in column 2 ("current")');
+    expect(control.line).toBe(3);
+  });
+
+  it("header without rows: nothing numeric within the first 10 000 lines", async () => {
+    const error = await rejection(Array.from({ length: 10_001 }, (_, k) => `setting ${k}: on`).join("\n"));
+    expect(error.problem).toBe("header without rows: no row of numbers in the first 10000 lines");
+    expect(error.line).toBe(10_001);
+  });
+
+  it("text in numbers: a timestamp column with something else further down", async () => {
+    const error = await rejection("timestamp,current\n2025-01-01T00:00:00.000Z,1\n12:00:01,2\n");
+    expect(error.problem).toBe('text in numbers: "12:00:01" in column 1 ("timestamp") is not an ISO 8601 timestamp like the first row\'s');
+    expect(error.line).toBe(3);
+  });
+
+  it("a time column and a sample interval both given, a bad interval, a bad scale", async () => {
+    const both = await rejection("time,current\n0,1\n0.001,2\n", { time: "time", sampleIntervalSeconds: 0.001 });
+    expect(both.problem).toBe("give either a time column or a sample interval, not both");
+    expect(both.line).toBeNull();
+    const interval = await rejection("current\n1\n2\n", { sampleIntervalSeconds: -1 });
+    expect(interval.problem).toBe("the sample interval must be a positive number of seconds, got -1");
+    expect(interval.line).toBeNull();
+    const scale = await rejection("time,current\n0,1\n0.001,2\n", { current: { scale: 0 } });
+    expect(scale.problem).toBe("the current scale must be a finite, non-zero number, got 0");
+    expect(scale.line).toBeNull();
+  });
+
   it("a missing file", async () => {
     await expect(readCaptureFile(join(fixtures, "no-such-capture.csv"))).rejects.toMatchObject({
       name: "CaptureError",
