@@ -43,6 +43,10 @@ export const pageAccess = {
   // workspace: tools catalogue, instruments, protocols
   // workspace: runs, captures, analyses
   // workspace: reports
+  "/workspace/reports": "workspace:use",
+  "/workspace/reports/new": "workspace:use",
+  "/workspace/reports/[id]": "workspace:use",
+  "/workspace/reports/[id]/view": "workspace:use",
 } as const satisfies Record<string, Access>;
 
 /** Route handlers by pattern and method. */
@@ -54,6 +58,9 @@ export const routeHandlerAccess = {
   // workspace: tools catalogue, instruments, protocols
   // workspace: runs, captures, analyses
   // workspace: reports
+  "POST /api/reports/[id]/preview": "workspace:use",
+  /** Published reports' images are public; the handler itself limits drafts to their author and editors. */
+  "GET /api/report-images/[imageId]": "public",
 } as const satisfies Record<string, Access>;
 
 /** Server actions by "<file under app/>#<export>". */
@@ -68,6 +75,13 @@ export const actionAccess = {
   // workspace: tools catalogue, instruments, protocols
   // workspace: runs, captures, analyses
   // workspace: reports
+  "(workspace)/workspace/reports/actions.ts#createReport": "workspace:use",
+  "(workspace)/workspace/reports/actions.ts#updateReport": "workspace:use",
+  "(workspace)/workspace/reports/actions.ts#citeAnalysis": "workspace:use",
+  "(workspace)/workspace/reports/actions.ts#removeCitation": "workspace:use",
+  "(workspace)/workspace/reports/actions.ts#uploadReportImage": "workspace:use",
+  "(workspace)/workspace/reports/actions.ts#deleteReportImage": "workspace:use",
+  "(workspace)/workspace/reports/actions.ts#submitReport": "workspace:use",
 } as const satisfies Record<string, Access>;
 
 export type PagePattern = keyof typeof pageAccess;

@@ -18,6 +18,7 @@ import {
   isEmbedName,
   isSafeUrl,
   jsxAttributeToProperty,
+  MAX_MDX_LENGTH,
   PROBLEM_NOTE_COMPONENT,
   type EmbedName,
 } from "./policy";
@@ -33,8 +34,6 @@ export type CompiledMdx = {
   problems: MdxProblem[];
   references: EmbedReference[];
 };
-
-export const MAX_MDX_LENGTH = 100_000;
 
 type JsxHast = MdxJsxFlowElementHast | MdxJsxTextElementHast;
 

@@ -140,3 +140,6 @@ export function isSafeUrl(value: string): boolean {
 
 /** Labels name a cited analysis or an uploaded image inside the MDX body. */
 export const referenceNamePattern = /^[a-z0-9][a-z0-9-]{0,47}$/;
+
+/** A report body far longer than any report, so a paste accident cannot tie up the compiler. */
+export const MAX_MDX_LENGTH = 100_000;
