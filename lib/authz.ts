@@ -41,6 +41,16 @@ export const pageAccess = {
   "/admin": "users:manage",
   "/admin/mail": "mail:inspect",
   // workspace: tools catalogue, instruments, protocols
+  "/workspace/tools": "catalogue:edit",
+  "/workspace/tools/new": "catalogue:edit",
+  "/workspace/tools/[slug]/edit": "catalogue:edit",
+  "/workspace/instruments": "workspace:use",
+  "/workspace/instruments/new": "workspace:use",
+  "/workspace/instruments/[id]/edit": "workspace:use",
+  "/workspace/protocols": "workspace:use",
+  "/workspace/protocols/new": "workspace:use",
+  "/workspace/protocols/[slug]": "workspace:use",
+  "/workspace/protocols/[slug]/edit": "workspace:use",
   // workspace: runs, captures, analyses
   // workspace: reports
   "/workspace/reports": "workspace:use",
@@ -56,6 +66,7 @@ export const routeHandlerAccess = {
   "POST /api/auth/[...nextauth]": "public",
   "GET /api/avatars/[userId]": "public",
   // workspace: tools catalogue, instruments, protocols
+  "GET /api/tool-photos/[photoId]/[width]": "public",
   // workspace: runs, captures, analyses
   // workspace: reports
   "POST /api/reports/[id]/preview": "workspace:use",
@@ -73,6 +84,14 @@ export const actionAccess = {
   "(account)/actions.ts#updateAvatar": "account:manage",
   "(admin)/actions.ts#changeUserRole": "users:manage",
   // workspace: tools catalogue, instruments, protocols
+  "(workspace)/workspace/tools/actions.ts#createTool": "catalogue:edit",
+  "(workspace)/workspace/tools/actions.ts#updateTool": "catalogue:edit",
+  "(workspace)/workspace/tools/actions.ts#addToolPhoto": "catalogue:edit",
+  "(workspace)/workspace/tools/actions.ts#deleteToolPhoto": "catalogue:edit",
+  "(workspace)/workspace/instruments/actions.ts#createInstrument": "workspace:use",
+  "(workspace)/workspace/instruments/actions.ts#updateInstrument": "workspace:use",
+  "(workspace)/workspace/protocols/actions.ts#createProtocol": "workspace:use",
+  "(workspace)/workspace/protocols/actions.ts#reviseProtocol": "workspace:use",
   // workspace: runs, captures, analyses
   // workspace: reports
   "(workspace)/workspace/reports/actions.ts#createReport": "workspace:use",

@@ -1,14 +1,11 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { getToolBySlug } from "@/db/queries/catalogue";
+import { listToolPhotos } from "@/db/queries/tool-photos";
 import { formatFrequencies, formatOptional, formatPrice, formatRange, formatRatedVoltage } from "@/lib/format";
 import { toolCategoryLabels } from "@/lib/validations/catalogue";
-
-const applianceTypeLabels = {
-  heating: "Heating appliance",
-  motor: "Motor-operated appliance",
-  combined: "Combined appliance",
-} as const;
+import { applianceTypeLabels } from "@/lib/validations/tool";
+import { ToolPhotoGallery } from "./_components/tool-photo-gallery";
 
 export async function generateMetadata({ params }: PageProps<"/tools/[slug]">): Promise<Metadata> {
   const tool = await getToolBySlug({ slug: (await params).slug });
@@ -16,7 +13,8 @@ export async function generateMetadata({ params }: PageProps<"/tools/[slug]">): 
 }
 
 export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
-  const tool = await getToolBySlug({ slug: (await params).slug });
+  const { slug } = await params;
+  const [tool, photos] = await Promise.all([getToolBySlug({ slug }), listToolPhotos({ toolSlug: slug })]);
   if (!tool) notFound();
   const ratings: [string, string][] = [
     ["Rated power input", `${tool.ratedPowerW} W`],
@@ -37,6 +35,7 @@ export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
         </h1>
         <p className="max-w-2xl font-serif text-lg text-ink-soft">{tool.summary}</p>
       </header>
+      {photos.length ? <ToolPhotoGallery photos={photos} /> : null}
       <section aria-labelledby="ratings-heading" className="max-w-2xl">
         <h2 id="ratings-heading" className="mb-3 font-serif text-2xl">
           Ratings as the maker states them
