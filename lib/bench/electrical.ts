@@ -52,30 +52,30 @@ export interface ZeroCrossings {
  * Crossings of zero with hysteresis: the signal must leave a ±threshold band on
  * the other side before a crossing counts, and the crossing is placed at the
  * last sign change before it left. A signal resting at zero (a blocked
- * half-cycle) makes none.
+ * half-cycle) makes none; but after resting in the band for `restSamples` it
+ * makes one on leaving, whichever side it left last, so a current fed through
+ * a diode (pulses of one polarity) still marks each cycle.
  */
-export function findZeroCrossings(signal: Float64Array, threshold: number): ZeroCrossings {
+export function findZeroCrossings(signal: Float64Array, threshold: number, restSamples = Infinity): ZeroCrossings {
   const positions: number[] = [];
   const directions: number[] = [];
   if (!(threshold > 0)) return { positions, directions };
   let state = 0;
   let lastSignChange = -1;
+  let lastOutside = -1;
   let previous = signal[0] ?? 0;
   for (let k = 1; k < signal.length; k++) {
     const value = signal[k] as number;
     if (previous <= 0 !== value <= 0) lastSignChange = k;
-    if (value > threshold) {
-      if (state < 0 && lastSignChange > 0) {
+    if (value > threshold || value < -threshold) {
+      const direction = value > 0 ? 1 : -1;
+      const rested = k - lastOutside - 1 >= restSamples;
+      if ((state === -direction || rested) && lastSignChange > lastOutside) {
         positions.push(interpolateZero(signal, lastSignChange));
-        directions.push(1);
+        directions.push(direction);
       }
-      state = 1;
-    } else if (value < -threshold) {
-      if (state > 0 && lastSignChange > 0) {
-        positions.push(interpolateZero(signal, lastSignChange));
-        directions.push(-1);
-      }
-      state = -1;
+      state = direction;
+      lastOutside = k;
     }
     previous = value;
   }
@@ -155,7 +155,9 @@ export function measureMainsFrequency(input: {
   ];
   for (const { signal, source } of candidates) {
     if (signal === null) continue;
-    const crossings = findZeroCrossings(signal, CROSSING_HYSTERESIS * robustPeak(signal));
+    // A quarter of a half-cycle at rest marks a blocked stretch rather than a passage through zero.
+    const restSamples = sampleRateHz / (8 * input.nominalHz);
+    const crossings = findZeroCrossings(signal, CROSSING_HYSTERESIS * robustPeak(signal), restSamples);
     const frequencyHz = frequencyFromCrossings(crossings, sampleRateHz);
     if (frequencyHz !== null) return { frequencyHz, source, crossings };
   }
@@ -198,7 +200,7 @@ export function halfCycleBoundaries(crossings: ZeroCrossings, sampleRateHz: numb
  * sample standing for the interval half a sample either side of it: samples
  * first … last lie wholly inside, and the two cut by the span's ends count with
  * the share of their interval inside it (leadWeight for sample first − 1,
- * trailWeight for last + 1). Sums weighted so integrate over exactly the span,
+ * trailWeight for last + 1). Sums weighted this way integrate over exactly the span,
  * whole cycles included, however many samples a cycle holds.
  */
 export interface SampleCells {

@@ -65,6 +65,15 @@ describe("half-cycle firing", () => {
     expect(second?.amps).toBeCloseTo((2 * peak) / (3 * Math.PI) / Math.SQRT2, 3);
   });
 
+  it("finds the frequency and the asymmetry of a diode-fed heater from its current alone", () => {
+    const current = switchedResistor(mains, voltage, ohms, (halfCycle) => halfCycle % 2 === 0);
+    const result = analyzeSamples({ current, voltage: null, sampleRateHz: mains.sampleRateHz }, {});
+    expect(result.frequencySource).toBe("current");
+    expect(result.frequencyHz).toBeCloseTo(50, 3);
+    expect(result.halfCycles).toMatchObject({ firing: "half-cycle", asymmetric: true, negativeConducting: 0 });
+    expect(result.halfCycles.duty).toBeCloseTo(0.5, 2);
+  });
+
   it("keeps symmetric half-cycle firing apart from asymmetric control", () => {
     const current = switchedResistor(mains, voltage, ohms, (halfCycle) => halfCycle % 3 === 0);
     const result = analyzeSamples({ current, voltage, sampleRateHz: mains.sampleRateHz }, {});
