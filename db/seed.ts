@@ -1,8 +1,13 @@
 import { closeDatabase, db } from "@/db";
 import { seedPeopleAndCatalogue } from "./seeds/people-and-catalogue";
+import { seedReports } from "./seeds/reports";
 
 // Each seeder extends the demo scenario with one area of the product, in dependency order; each is idempotent.
-const seeders = [{ name: "people and catalogue", run: seedPeopleAndCatalogue }];
+const seeders = [
+  { name: "people and catalogue", run: seedPeopleAndCatalogue },
+  // Last: reports cite what the other seeders made.
+  { name: "draft reports", run: seedReports },
+];
 
 try {
   for (const seeder of seeders) {
