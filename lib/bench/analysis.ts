@@ -234,6 +234,10 @@ export function analyzeSamples(
       factorWhileConducting: whileConducting?.factor ?? null,
     };
     powerWhileConducting = power.whileConducting;
+    const supply = voltageReport.rmsWhileConducting ?? voltageRecord.rms;
+    if (Math.abs(supply - nominalVoltage) > 0.1 * nominalVoltage) {
+      warnings.push(`measured supply ${round(supply, 1)} V is more than 10 % from the nominal ${nominalVoltage} V: check the nominal voltage`);
+    }
     if (recordPower.real < 0) {
       warnings.push("negative real power: the current clamp or the voltage probe is probably connected the wrong way round");
     }

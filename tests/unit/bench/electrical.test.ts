@@ -37,6 +37,13 @@ describe("whole-record figures", () => {
     expect(result.power?.apparent).toBeCloseTo(230 * 4, 3);
   });
 
+  it("warns when the measured supply is far from the nominal", () => {
+    const mains = { frequencyHz: 60, sampleRateHz: 12_000, seconds: 0.5 };
+    const voltage = mainsVoltage(mains, 120);
+    const result = analyse(mains, switchedResistor(mains, voltage, 14.4, () => true), voltage, { nominalFrequencyHz: 60 });
+    expect(result.warnings).toContain("measured supply 120 V is more than 10 % from the nominal 230 V: check the nominal voltage");
+  });
+
   it("flags negative real power as a reversed probe", () => {
     const mains = { frequencyHz: 50, sampleRateHz: 10_000, seconds: 0.5 };
     const voltage = mainsVoltage(mains, 230);
