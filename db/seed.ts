@@ -1,10 +1,12 @@
 import { closeDatabase, db } from "@/db";
 import { seedPeopleAndCatalogue } from "./seeds/people-and-catalogue";
+import { seedWorkspaceCatalogue } from "./seeds/workspace-catalogue";
 import { seedReports } from "./seeds/reports";
 
 // Each seeder extends the demo scenario with one area of the product, in dependency order; each is idempotent.
 const seeders = [
   { name: "people and catalogue", run: seedPeopleAndCatalogue },
+  { name: "instruments, protocols and tool photos", run: seedWorkspaceCatalogue },
   // Last: reports cite what the other seeders made.
   { name: "draft reports", run: seedReports },
 ];

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { seededReportIds } from "@/db/seeds/reports-data";
 import { demoPassword, demoPeople, demoTools } from "@/db/seeds/people-and-catalogue-data";
 import { can, pageAccess, roleNavigation, roles, type Access, type Role } from "@/lib/authz";
 import { DESKTOP_VIEWPORT, PHONE_VIEWPORT, launchBrowser, signIn, url, type E2eBrowser } from "../support/e2e";
@@ -17,6 +18,11 @@ const samplePaths: Record<keyof typeof pageAccess, string> = {
   "/desk": "/desk",
   "/admin": "/admin",
   "/admin/mail": "/admin/mail",
+  // workspace: reports
+  "/workspace/reports": "/workspace/reports",
+  "/workspace/reports/new": "/workspace/reports/new",
+  "/workspace/reports/[id]": `/workspace/reports/${seededReportIds.wrenford}`,
+  "/workspace/reports/[id]/view": `/workspace/reports/${seededReportIds.wrenford}/view`,
 };
 
 function demoAccount(role: Role) {
