@@ -168,3 +168,69 @@ export function defaultHeatUpBandC(tolerances: ProtocolTolerances): number {
   const tolerance = tolerances.temperature_vs_setpoint;
   return tolerance?.kind === "absolute" ? Math.min(tolerance.plus, tolerance.minus) || Math.max(tolerance.plus, tolerance.minus) : 10;
 }
+
+type Heading = { columns: string[]; header: { key: string; value: string }[]; detected: Record<"time" | "current" | "voltage" | "temperature", string | null> };
+
+/** "2.0000E-04", "0,2 ms", "200 us": the sample interval a scope writes in its header, in seconds. */
+export function sampleIntervalFromHeader(header: Heading["header"]): number | undefined {
+  const entry = header.find((line) => /interval|increment|x-?incr/i.test(line.key));
+  const match = entry && /^([+]?\d*[.,]?\d+(?:e[+-]?\d+)?)\s*(s|ms|us|µs)?$/i.exec(entry.value.trim());
+  if (!match) return undefined;
+  const value = Number(match[1]!.replace(",", "."));
+  const unit = (match[2] ?? "s").toLowerCase();
+  const seconds = value * (unit === "ms" ? 1e-3 : unit === "s" ? 1 : 1e-6);
+  return Number.isFinite(seconds) && seconds > 0 ? seconds : undefined;
+}
+
+const asFormValues = (mapping: object): Record<string, string> =>
+  Object.fromEntries(Object.entries(mapping).flatMap(([name, value]) => (value === undefined || value === null ? [] : [[name, String(value)]])));
+
+/** The mapping form starts from the capture's last mapping, else from what the header names and the run expects. */
+export function waveformMappingDefaults(input: {
+  heading: Heading;
+  previous: WaveformMapping | null;
+  expectedCurrentA: number;
+  nominalVoltage: number;
+  instruments: readonly RunInstrument[];
+}): Record<string, string> {
+  const { heading, previous, instruments } = input;
+  if (previous) return asFormValues(previous);
+  const { detected, columns } = heading;
+  const free = columns.filter((column) => column !== detected.time && column !== detected.voltage);
+  const interval = detected.time ? undefined : sampleIntervalFromHeader(heading.header);
+  return asFormValues({
+    currentColumn: detected.current ?? free[0] ?? columns[0],
+    currentScale: 1,
+    voltageColumn: detected.voltage ?? "",
+    voltageScale: 1,
+    timeColumn: detected.time ?? "",
+    sampleIntervalSeconds: interval ?? "",
+    harmonicClass: "A",
+    dmaxLimitPercent: 4,
+    currentAccuracy: defaultAccuracyChoice(accuracyChoices(instruments, "current"), input.expectedCurrentA) ?? "",
+    voltageAccuracy: defaultAccuracyChoice(accuracyChoices(instruments, "voltage"), input.nominalVoltage) ?? "",
+    rule: "simple",
+  });
+}
+
+export function heatUpMappingDefaults(input: {
+  heading: Heading;
+  previous: HeatUpMapping | null;
+  setpointC: number | null;
+  tolerances: ProtocolTolerances;
+  instruments: readonly RunInstrument[];
+}): Record<string, string> {
+  const { heading, previous, instruments, setpointC } = input;
+  if (previous) return asFormValues(previous);
+  const { detected, columns } = heading;
+  return asFormValues({
+    temperatureColumn: detected.temperature ?? columns.find((column) => column !== detected.time) ?? columns[0],
+    temperatureScale: 1,
+    timeColumn: detected.time ?? "",
+    sampleIntervalSeconds: detected.time ? "" : (sampleIntervalFromHeader(heading.header) ?? ""),
+    setpointC: setpointC ?? "",
+    bandC: defaultHeatUpBandC(input.tolerances),
+    temperatureAccuracy: defaultAccuracyChoice(accuracyChoices(instruments, "temperature"), setpointC ?? 400) ?? "",
+    rule: "simple",
+  });
+}

@@ -52,6 +52,10 @@ export const pageAccess = {
   "/workspace/protocols/[slug]": "workspace:use",
   "/workspace/protocols/[slug]/edit": "workspace:use",
   // workspace: runs, captures, analyses
+  "/workspace/runs": "workspace:use",
+  "/workspace/runs/new": "workspace:use",
+  "/workspace/runs/[id]": "workspace:use",
+  "/workspace/runs/[id]/captures/[captureId]": "workspace:use",
   // workspace: reports
   "/workspace/reports": "workspace:use",
   "/workspace/reports/new": "workspace:use",
@@ -68,6 +72,9 @@ export const routeHandlerAccess = {
   // workspace: tools catalogue, instruments, protocols
   "GET /api/tool-photos/[photoId]/[width]": "public",
   // workspace: runs, captures, analyses
+  "POST /api/captures": "workspace:use",
+  "POST /api/captures/[id]/uploaded": "workspace:use",
+  "GET /api/analyses/[id]": "workspace:use",
   // workspace: reports
   "POST /api/reports/[id]/preview": "workspace:use",
   /** Published reports' images are public; the handler itself limits drafts to their author and editors. */
@@ -93,6 +100,12 @@ export const actionAccess = {
   "(workspace)/workspace/protocols/actions.ts#createProtocol": "workspace:use",
   "(workspace)/workspace/protocols/actions.ts#reviseProtocol": "workspace:use",
   // workspace: runs, captures, analyses
+  "(workspace)/workspace/runs/actions.ts#createRun": "workspace:use",
+  "(workspace)/workspace/runs/actions.ts#updateRun": "workspace:use",
+  "(workspace)/workspace/runs/actions.ts#addManualReading": "workspace:use",
+  "(workspace)/workspace/runs/actions.ts#deleteManualReading": "workspace:use",
+  "(workspace)/workspace/runs/actions.ts#startWaveformAnalysis": "workspace:use",
+  "(workspace)/workspace/runs/actions.ts#startHeatUpAnalysis": "workspace:use",
   // workspace: reports
   "(workspace)/workspace/reports/actions.ts#createReport": "workspace:use",
   "(workspace)/workspace/reports/actions.ts#updateReport": "workspace:use",

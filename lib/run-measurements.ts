@@ -25,11 +25,12 @@ export type MeasurementDraft = {
   value: number;
   unit: string;
   expandedUncertainty: number | null;
-  verdict: Record<string, unknown> | null;
+  /** The verdict with every number it used; RatingVerdict or PowerInputVerdict. */
+  verdict: object | null;
 };
 
 function draft(kind: MeasurementKind, value: number, expandedUncertainty: number | null, verdict: object | null = null): MeasurementDraft {
-  return { kind, value, unit: measurementKindInfo[kind].unit, expandedUncertainty, verdict: verdict as Record<string, unknown> | null };
+  return { kind, value, unit: measurementKindInfo[kind].unit, expandedUncertainty, verdict };
 }
 
 /**
@@ -185,14 +186,22 @@ export type ReadingRatings = {
   tolerances: ProtocolTolerances;
 };
 
-export type ReadingFigures = {
-  spread: Spread;
-  typeA: number | null;
-  uncertainty: ReadingUncertainty;
-  verdict: RatingVerdict | null;
-};
+export type ReadingSpread = { spread: Spread; typeA: number | null; uncertainty: ReadingUncertainty };
 
-/** Mean and spread of the repeats, Type A (s/√n) combined with the instrument's Type B, and the verdict where a rating applies. */
+/** Mean and spread of the repeats, and Type A (s/√n) combined with the instrument's Type B into U (k = 2). */
+export function describeReadings({ values, accuracy }: { values: readonly number[]; accuracy: AccuracySpec | null }): ReadingSpread {
+  const spread = describeSpread(values, "readings");
+  const repeats = values.length > 1 ? values : undefined;
+  return {
+    spread,
+    typeA: repeats ? typeAStandardUncertainty(repeats) : null,
+    uncertainty: uncertaintyOfReading({ reading: spread.mean, accuracy, repeats }),
+  };
+}
+
+export type ReadingFigures = ReadingSpread & { verdict: RatingVerdict | null };
+
+/** The readings described, and judged where a rating applies to their kind. */
 export function manualReadingFigures(input: {
   kind: MeasurementKind;
   values: readonly number[];
@@ -200,12 +209,9 @@ export function manualReadingFigures(input: {
   rule: DecisionRule;
   ratings: ReadingRatings;
 }): ReadingFigures {
-  const { kind, values, accuracy, rule, ratings } = input;
-  const spread = describeSpread(values, "readings");
-  const repeats = values.length > 1 ? values : undefined;
-  const uncertainty = uncertaintyOfReading({ reading: spread.mean, accuracy, repeats });
-  const typeA = repeats ? typeAStandardUncertainty(repeats) : null;
-  const judged = { measured: spread.mean, expandedUncertainty: uncertainty.expanded, rule };
+  const { kind, rule, ratings } = input;
+  const described = describeReadings(input);
+  const judged = { measured: described.spread.mean, expandedUncertainty: described.uncertainty.expanded, rule };
   const byTolerance = (rated: number | null, tolerance: ProtocolTolerances[keyof ProtocolTolerances]) =>
     rated === null || tolerance === undefined ? null : judgeRating({ ...judged, rated, tolerance });
 
@@ -234,5 +240,5 @@ export function manualReadingFigures(input: {
       tolerance: { source: tolerance.source, description: tolerance.row },
     };
   }
-  return { spread, typeA, uncertainty, verdict };
+  return { ...described, verdict };
 }

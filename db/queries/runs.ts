@@ -326,7 +326,7 @@ export async function insertMeasurements(
       value: draft.value,
       unit: draft.unit,
       expandedUncertainty: draft.expandedUncertainty,
-      verdict: draft.verdict,
+      verdict: draft.verdict as Record<string, unknown> | null,
     })),
   );
 }
