@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { seededReportIds } from "@/db/seeds/reports-data";
 import { demoPassword, demoPeople, demoTools } from "@/db/seeds/people-and-catalogue-data";
+import { demoInstruments, demoProtocols } from "@/db/seeds/workspace-catalogue-data";
 import { can, pageAccess, roleNavigation, roles, type Access, type Role } from "@/lib/authz";
 import { DESKTOP_VIEWPORT, PHONE_VIEWPORT, launchBrowser, signIn, url, type E2eBrowser } from "../support/e2e";
 
@@ -18,6 +19,17 @@ const samplePaths: Record<keyof typeof pageAccess, string> = {
   "/desk": "/desk",
   "/admin": "/admin",
   "/admin/mail": "/admin/mail",
+  // workspace: tools catalogue, instruments, protocols (the demo reviewer keeps the first lab's register and wrote the first protocol)
+  "/workspace/tools": "/workspace/tools",
+  "/workspace/tools/new": "/workspace/tools/new",
+  "/workspace/tools/[slug]/edit": `/workspace/tools/${demoTools[0]!.slug}/edit`,
+  "/workspace/instruments": "/workspace/instruments",
+  "/workspace/instruments/new": "/workspace/instruments/new",
+  "/workspace/instruments/[id]/edit": `/workspace/instruments/${demoInstruments[0]!.id}/edit`,
+  "/workspace/protocols": "/workspace/protocols",
+  "/workspace/protocols/new": "/workspace/protocols/new",
+  "/workspace/protocols/[slug]": `/workspace/protocols/${demoProtocols[0]!.slug}`,
+  "/workspace/protocols/[slug]/edit": `/workspace/protocols/${demoProtocols[0]!.slug}/edit`,
   // workspace: reports
   "/workspace/reports": "/workspace/reports",
   "/workspace/reports/new": "/workspace/reports/new",
