@@ -149,7 +149,7 @@ describe("applying the limits", () => {
     expect(assessHarmonics({ ...base, harmonicClass: "B" }).status).toBe("within limits");
   });
 
-  // IEC 61000-3-2 (REFERENCES.md §4 and issue 3): no limits at 75 W or less, nor outside 220–240 V.
+  // IEC 61000-3-2 scope as issue 3 states it (from memory, not in REFERENCES.md): no limits at 75 W or less, nor outside 220–240 V.
   it("is not applicable at 75 W or less, outside 220–240 V, or above 16 A", () => {
     const small = assessHarmonics({ ...base, powerW: 75 });
     expect(small).toMatchObject({ applicable: false, status: "not applicable" });
