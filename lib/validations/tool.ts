@@ -67,7 +67,7 @@ const toolFields = z.object({
   temperatureMaxC: optionalNumberField((field) => field.min(0, "Use °C at or above 0.").max(1200, "Use °C up to 1200.")),
   claimedHeatUpSeconds: optionalNumberField((field) => field.positive("The claimed heat-up time must be above 0 s.").max(3600, "Give the heat-up time in seconds, up to 3600.")),
   price: optionalNumberField((field) => field.positive("The price must be above 0.").max(1_000_000, "The price must be below 1 000 000.")),
-  currency: optionalText(3),
+  currency: optionalText(12),
   accessories: z.array(accessorySchema).max(40, "List at most 40 accessories."),
   summary: z.string().trim().max(600, "Keep the summary to 600 characters.").default(""),
 });
