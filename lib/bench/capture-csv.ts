@@ -588,6 +588,15 @@ class CaptureReader {
         p = bytes.indexOf(LF, p) + 1;
         continue;
       }
+      if (c === SPACE || c === TAB) {
+        // A line of nothing but blanks is a blank line, as it is in the header.
+        let q = p;
+        while (bytes[q] === SPACE || bytes[q] === TAB || bytes[q] === CR) q++;
+        if (bytes[q] === LF) {
+          p = q + 1;
+          continue;
+        }
+      }
       let field = 0;
       let time = 0;
       let currentValue = 0;

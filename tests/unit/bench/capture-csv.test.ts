@@ -92,6 +92,11 @@ describe("reading captures", () => {
     expect(Array.from(capture.current ?? [])).toEqual([1.5, -25, 0.25, 3.141592653589793, 1234567890123456800, 7e-30]);
   });
 
+  it("skips blank, blank-looking and comment lines among the rows", async () => {
+    const capture = await readCapture("time,current\n0,1\n\n   \t\r\n# marker: load step\n0.001,2\n");
+    expect(Array.from(capture.current ?? [])).toEqual([1, 2]);
+  });
+
   it("maps the only channel of a two-column capture to current and finds columns by name with units", async () => {
     const capture = await readCapture("Time (s),Probe\n0,1\n0.001,2\n");
     expect(capture.mapping.current).toBe("Probe");
