@@ -1,4 +1,5 @@
 import { closeDatabase, db } from "@/db";
+import { seedBenchRuns } from "./seeds/bench-runs";
 import { seedPeopleAndCatalogue } from "./seeds/people-and-catalogue";
 import { seedWorkspaceCatalogue } from "./seeds/workspace-catalogue";
 import { seedReports } from "./seeds/reports";
@@ -7,6 +8,7 @@ import { seedReports } from "./seeds/reports";
 const seeders = [
   { name: "people and catalogue", run: seedPeopleAndCatalogue },
   { name: "instruments, protocols and tool photos", run: seedWorkspaceCatalogue },
+  { name: "test runs, captures and analyses", run: seedBenchRuns },
   // Last: reports cite what the other seeders made.
   { name: "draft reports", run: seedReports },
 ];

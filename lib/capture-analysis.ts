@@ -1,6 +1,6 @@
 import "server-only";
 import { z } from "zod";
-import { db } from "@/db";
+import { db, type Transaction } from "@/db";
 import { claimAnalysis, completeAnalysis, failAnalysis } from "@/db/queries/captures";
 import { insertMeasurements } from "@/db/queries/runs";
 import type { DisplaySeries } from "@/db/schema";
@@ -33,13 +33,13 @@ async function* storedChunks(objectKey: string): AsyncGenerator<Uint8Array> {
   }
 }
 
-type Outcome = { analysisVersion: string; result: object; displaySeries: DisplaySeries; drafts: MeasurementDraft[] };
+export type AnalysisOutcome = { analysisVersion: string; result: object; displaySeries: DisplaySeries; drafts: MeasurementDraft[] };
 
 async function analyseWaveform(
   options: Extract<StoredAnalysisOptions, { kind: "waveform" }>,
   source: () => CaptureData,
   sizeBytes: number,
-): Promise<Outcome> {
+): Promise<AnalysisOutcome> {
   // The same call as `npm run analyze -- FILE --json`, so the stored result is the CLI's object for the same file.
   const result = await analyzeCapture({ data: source(), sizeBytes }, options.analysis);
   // A second pass for the charts: analyzeCapture keeps no samples, and re-reading costs far less than the analysis.
@@ -68,7 +68,7 @@ async function analyseHeatUpLog(
   options: Extract<StoredAnalysisOptions, { kind: "heat_up_log" }>,
   source: () => CaptureData,
   sizeBytes: number,
-): Promise<Outcome> {
+): Promise<AnalysisOutcome> {
   const { heatUp } = options;
   const capture = await readCapture(source(), {
     current: null,
@@ -101,38 +101,48 @@ export function describeAnalysisFailure(error: unknown): { message: string; line
   return { message: error instanceof Error ? error.message : String(error), line: null };
 }
 
-class AlreadyFinished extends Error {}
+/** Reads the stored capture and analyses it under the options; a capture the analysis rejects throws. */
+export async function analyseStoredCapture({
+  options,
+  objectKey,
+  sizeBytes,
+}: {
+  options: StoredAnalysisOptions;
+  objectKey: string;
+  sizeBytes: number;
+}): Promise<AnalysisOutcome> {
+  const source = () => storedChunks(objectKey);
+  return options.kind === "waveform" ? analyseWaveform(options, source, sizeBytes) : analyseHeatUpLog(options, source, sizeBytes);
+}
 
 /**
- * The worker's job: analyse one capture under one analysis row's options, then store the result, the chart series
- * and the run's measurements in one transaction. A capture the analysis rejects ends as a failed row with the message
- * and line; only a failure to record either outcome is thrown, so the queue retries the job.
+ * The result, the chart series and the run's measurements, written together in the caller's transaction. Only a
+ * running analysis takes a result: false means another worker finished it first, and nothing was written.
+ */
+export async function storeAnalysisOutcome(tx: Transaction, { analysisId, runId, outcome }: { analysisId: string; runId: string; outcome: AnalysisOutcome }) {
+  const stored = await completeAnalysis(tx, { id: analysisId, ...outcome });
+  if (!stored) return false;
+  await insertMeasurements(tx, { runId, source: { analysisId }, drafts: outcome.drafts });
+  return true;
+}
+
+/**
+ * The worker's job: analyse one capture under one analysis row's options and store the outcome in one transaction.
+ * A capture the analysis rejects ends as a failed row with the message and line; only a failure to record either
+ * outcome is thrown, so the queue retries the job.
  */
 export async function runCaptureAnalysis({ analysisId }: AnalyseCaptureJob): Promise<"done" | "failed" | "skipped"> {
   const claimed = await claimAnalysis({ id: analysisId });
   if (claimed === null) return "skipped";
   const { options, capture } = claimed;
-  let outcome: Outcome;
+  let outcome: AnalysisOutcome;
   try {
     if (capture.status !== "uploaded") throw new CaptureError("the capture's upload was never completed", null);
-    const source = () => storedChunks(capture.objectKey);
-    outcome =
-      options.kind === "waveform"
-        ? await analyseWaveform(options, source, capture.declaredBytes)
-        : await analyseHeatUpLog(options, source, capture.declaredBytes);
+    outcome = await analyseStoredCapture({ options, objectKey: capture.objectKey, sizeBytes: capture.declaredBytes });
   } catch (error) {
     await failAnalysis({ id: analysisId, error: describeAnalysisFailure(error) });
     return "failed";
   }
-  try {
-    await db.transaction(async (tx) => {
-      const stored = await completeAnalysis(tx, { id: analysisId, ...outcome });
-      if (!stored) throw new AlreadyFinished();
-      await insertMeasurements(tx, { runId: capture.runId, source: { analysisId }, drafts: outcome.drafts });
-    });
-  } catch (error) {
-    if (error instanceof AlreadyFinished) return "skipped";
-    throw error;
-  }
-  return "done";
+  const stored = await db.transaction((tx) => storeAnalysisOutcome(tx, { analysisId, runId: capture.runId, outcome }));
+  return stored ? "done" : "skipped";
 }
