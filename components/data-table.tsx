@@ -108,7 +108,8 @@ export function DataTable<Row>({
         {actions ? <div className="flex flex-wrap gap-2">{actions}</div> : null}
       </div>
 
-      <div className="overflow-x-auto rounded border border-rule bg-paper-raised">
+      {/* relative: screen-reader-only text in cells is positioned absolutely and must scroll with the table, not widen the page. */}
+      <div className="relative overflow-x-auto rounded border border-rule bg-paper-raised">
         <table className="w-full text-left text-sm" style={{ minWidth }}>
           <caption className={captionVisible ? "px-3 py-2 text-left font-serif text-lg" : "sr-only"}>{caption}</caption>
           <thead className="bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft">

@@ -1,4 +1,5 @@
 import { closeDatabase, db } from "@/db";
+import { seedCommunity } from "./seeds/community";
 import { seedBenchRuns } from "./seeds/bench-runs";
 import { seedPeopleAndCatalogue } from "./seeds/people-and-catalogue";
 import { seedWorkspaceCatalogue } from "./seeds/workspace-catalogue";
@@ -9,6 +10,7 @@ const seeders = [
   { name: "people and catalogue", run: seedPeopleAndCatalogue },
   { name: "instruments, protocols and tool photos", run: seedWorkspaceCatalogue },
   { name: "test runs, captures and analyses", run: seedBenchRuns },
+  { name: "measurement requests and e-mail settings", run: seedCommunity },
   // Last: reports cite what the other seeders made.
   { name: "draft reports", run: seedReports },
 ];
