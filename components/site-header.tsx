@@ -17,6 +17,9 @@ export async function SiteHeader() {
           <Link href="/tools" className="hover:text-copper">
             Tools
           </Link>
+          <Link href="/requests" className="hover:text-copper">
+            Requests
+          </Link>
           {roleLinks.map((link) => (
             <Link key={link.href} href={link.href} className="text-verdigris-deep hover:text-copper">
               {link.label}

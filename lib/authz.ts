@@ -13,6 +13,14 @@ export const permissions = {
   "desk:use": ["editor"],
   "users:manage": ["admin"],
   "mail:inspect": ["admin"],
+  // readers' voice, mail, audit
+  /** Post measurement requests and vote on them. */
+  "requests:ask": ["reader", "reviewer", "editor", "admin"],
+  /** Set a request planned or declined, reopen it, merge duplicates. */
+  "requests:triage": ["editor"],
+  /** Link the report that answers a request, which marks it measured. */
+  "requests:fulfil": ["reviewer", "editor"],
+  "audit:read": ["editor", "admin"],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof permissions;
@@ -40,6 +48,15 @@ export const pageAccess = {
   "/desk": "desk:use",
   "/admin": "users:manage",
   "/admin/mail": "mail:inspect",
+  // readers' voice, mail, audit
+  "/requests": "public",
+  "/requests/[id]": "public",
+  "/requests/new": "requests:ask",
+  "/unsubscribe/[token]": "public",
+  "/account-deleted": "public",
+  "/desk/requests": "requests:triage",
+  "/desk/requests/[id]": "requests:triage",
+  "/desk/audit": "audit:read",
   // workspace: tools catalogue, instruments, protocols
   "/workspace/tools": "catalogue:edit",
   "/workspace/tools/new": "catalogue:edit",
@@ -90,6 +107,14 @@ export const actionAccess = {
   "(auth)/actions.ts#signOutUser": "account:manage",
   "(account)/actions.ts#updateAvatar": "account:manage",
   "(admin)/actions.ts#changeUserRole": "users:manage",
+  // readers' voice, mail, audit
+  "(account)/actions.ts#updateNotificationPreferences": "account:manage",
+  "(account)/actions.ts#deleteAccount": "account:manage",
+  "(public)/actions.ts#createMeasurementRequest": "requests:ask",
+  "(public)/actions.ts#toggleRequestVote": "requests:ask",
+  "(public)/actions.ts#markRequestMeasured": "requests:fulfil",
+  "(desk)/actions.ts#changeRequestStatus": "requests:triage",
+  "(desk)/actions.ts#mergeMeasurementRequests": "requests:triage",
   // workspace: tools catalogue, instruments, protocols
   "(workspace)/workspace/tools/actions.ts#createTool": "catalogue:edit",
   "(workspace)/workspace/tools/actions.ts#updateTool": "catalogue:edit",
@@ -125,4 +150,5 @@ export const roleNavigation: readonly { href: PagePattern; label: string; permis
   { href: "/desk", label: "Editor's desk", permission: "desk:use" },
   { href: "/admin", label: "Accounts", permission: "users:manage" },
   { href: "/admin/mail", label: "Outgoing mail", permission: "mail:inspect" },
+  { href: "/desk/audit", label: "Audit log", permission: "audit:read" },
 ];

@@ -19,3 +19,16 @@ export function formatRange(min: number | null, max: number | null, unit: string
 export function formatOptional(value: number | null, unit: string): string {
   return value === null ? "—" : `${value} ${unit}`;
 }
+
+// One fixed locale and time zone, so the server's render and the reader's hydration agree on every date.
+const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
+const dateTimeFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+
+export function formatDate(date: Date): string {
+  return dateFormat.format(date);
+}
+
+/** With the time, marked UTC so no one reads it as their local time. */
+export function formatDateTime(date: Date): string {
+  return `${dateTimeFormat.format(date)} UTC`;
+}

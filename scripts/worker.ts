@@ -5,6 +5,7 @@ import { closeDatabase } from "@/db";
 import { runCaptureAnalysis } from "@/lib/capture-analysis";
 import { ABANDONED_AFTER_MS, cleanUpAbandonedUploads } from "@/lib/capture-uploads";
 import { queues, startJobQueue, type AnalyseCaptureJob } from "@/lib/jobs";
+import { deliverPendingMail } from "@/lib/outbox";
 
 // An analysis holds a core for seconds; below the web server's priority it never slows a page on a shared machine.
 setPriority(10);
@@ -22,6 +23,15 @@ await boss.schedule(queues.cleanUpUploads, "*/10 * * * *");
 await boss.work(queues.cleanUpUploads, { batchSize: 1 }, async () => {
   const removed = await cleanUpAbandonedUploads({ olderThan: new Date(Date.now() - ABANDONED_AFTER_MS) });
   if (removed.rows || removed.objects) console.log(`worker: removed ${removed.rows} abandoned uploads and ${removed.objects} orphaned objects`);
+});
+
+// Woken after each outbox write; the minutely sweep retries what failed and covers a lost wake-up.
+await boss.schedule(queues.deliverMail, "* * * * *", {}, { singletonKey: queues.deliverMail });
+await boss.work(queues.deliverMail, { batchSize: 1, pollingIntervalSeconds: 1 }, async () => {
+  const tally = await deliverPendingMail();
+  if (tally.sent || tally.retrying || tally.failed) {
+    console.log(`worker: mail sent ${tally.sent}, to retry ${tally.retrying}, failed ${tally.failed}`);
+  }
 });
 
 console.log(`worker ready: ${Object.values(queues).join(", ")}`);

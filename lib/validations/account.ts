@@ -47,3 +47,6 @@ export const roleChangeSchema = z.object({
 });
 
 export const avatarLimits = { maxBytes: 5 * 1024 * 1024, edgePixels: 256 } as const;
+
+/** Typing the address is the confirmation: a stray click cannot delete an account. */
+export const accountDeletionSchema = z.object({ confirmEmail: emailField });

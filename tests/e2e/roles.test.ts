@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { seededRequestIds } from "@/db/seeds/community-data";
 import { seededReportIds } from "@/db/seeds/reports-data";
 import { demoPassword, demoPeople, demoTools } from "@/db/seeds/people-and-catalogue-data";
 import { demoInstruments, demoProtocols } from "@/db/seeds/workspace-catalogue-data";
@@ -30,6 +31,15 @@ const samplePaths: Record<keyof typeof pageAccess, string> = {
   "/workspace/protocols/new": "/workspace/protocols/new",
   "/workspace/protocols/[slug]": `/workspace/protocols/${demoProtocols[0]!.slug}`,
   "/workspace/protocols/[slug]/edit": `/workspace/protocols/${demoProtocols[0]!.slug}/edit`,
+  // readers' voice, mail, audit
+  "/requests": "/requests",
+  "/requests/[id]": `/requests/${seededRequestIds.mostWanted}`,
+  "/requests/new": "/requests/new",
+  "/unsubscribe/[token]": `/unsubscribe/${"x".repeat(32)}?topic=request_update`,
+  "/account-deleted": "/account-deleted",
+  "/desk/requests": "/desk/requests",
+  "/desk/requests/[id]": `/desk/requests/${seededRequestIds.mostWanted}`,
+  "/desk/audit": "/desk/audit",
   // workspace: reports
   "/workspace/reports": "/workspace/reports",
   "/workspace/reports/new": "/workspace/reports/new",

@@ -1,0 +1,92 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { Pager } from "@/components/pager";
+import { RequestStatusBadge } from "@/components/request-status-badge";
+import { countMeasurementRequestsByStatus, listMeasurementRequests } from "@/db/queries/measurement-requests";
+import { formatDate } from "@/lib/format";
+import { requirePagePermission } from "@/lib/session";
+import { parseRequestListQuery, requestStatuses, requestStatusLabels } from "@/lib/validations/measurement-requests";
+
+export const metadata: Metadata = { title: "Request triage" };
+
+const perPage = 50;
+
+export default async function RequestTriagePage({ searchParams }: PageProps<"/desk/requests">) {
+  await requirePagePermission("requests:triage", "/desk/requests");
+  const { query, problem, hrefFor } = parseRequestListQuery(await searchParams);
+  const [{ requests, total }, counts] = await Promise.all([
+    listMeasurementRequests({ ...query, perPage, viewerId: null }),
+    countMeasurementRequestsByStatus(),
+  ]);
+
+  return (
+    <section className="space-y-5">
+      <h1 className="font-serif text-3xl">Measurement requests: triage</h1>
+      <p className="max-w-2xl text-sm text-ink-soft">
+        Plan what readers want most, decline with a reason, merge duplicates (their votes move, nobody counts twice) and link the
+        report that answers a request. Requesters and voters are told of every change by e-mail.
+      </p>
+      <form className="flex flex-wrap items-end gap-3" role="search">
+        <div className="flex flex-col gap-1">
+          <label htmlFor="status" className="text-sm font-semibold">
+            Status
+          </label>
+          <select id="status" name="status" defaultValue={query.status} className="rounded border border-rule bg-paper-raised px-3 py-2">
+            <option value="wanted">Open and planned ({counts.open + counts.planned})</option>
+            {requestStatuses.map((status) => (
+              <option key={status} value={status}>
+                {requestStatusLabels[status]} ({counts[status]})
+              </option>
+            ))}
+          </select>
+        </div>
+        <button type="submit" className="rounded bg-ink px-4 py-2 font-semibold text-paper-raised">
+          Show
+        </button>
+        {problem ? <p className="text-sm text-copper-deep">{problem}</p> : null}
+      </form>
+
+      <div className="overflow-x-auto rounded border border-rule bg-paper-raised">
+        <table className="w-full min-w-[44rem] text-left text-sm">
+          <caption className="sr-only">Measurement requests, most votes first</caption>
+          <thead className="bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft">
+            <tr>
+              <th scope="col" className="px-3 py-2 text-right">Votes</th>
+              <th scope="col" className="px-3 py-2">Tool</th>
+              <th scope="col" className="px-3 py-2">What to measure</th>
+              <th scope="col" className="px-3 py-2">Status</th>
+              <th scope="col" className="px-3 py-2">Asked</th>
+            </tr>
+          </thead>
+          <tbody>
+            {requests.map((request) => (
+              <tr key={request.id} className="border-t border-rule align-top">
+                <td className="figure px-3 py-2 text-right">{request.voteCount}</td>
+                <th scope="row" className="px-3 py-2 font-semibold">
+                  <Link href={`/desk/requests/${request.id}`} className="text-copper hover:underline">
+                    {request.toolName}
+                  </Link>
+                </th>
+                <td className="max-w-md px-3 py-2">
+                  <span className="line-clamp-2">{request.whatToMeasure}</span>
+                </td>
+                <td className="px-3 py-2">
+                  <RequestStatusBadge status={request.status} merged={request.mergedIntoId !== null} />
+                </td>
+                <td className="figure whitespace-nowrap px-3 py-2">{formatDate(request.createdAt)}</td>
+              </tr>
+            ))}
+            {requests.length === 0 ? (
+              <tr>
+                <td colSpan={5} className="px-3 py-6 text-center text-ink-soft">
+                  No request has this status.
+                </td>
+              </tr>
+            ) : null}
+          </tbody>
+        </table>
+      </div>
+      <Pager page={query.page} perPage={perPage} total={total} noun={["request", "requests"]} hrefFor={hrefFor} />
+    </section>
+  );
+}
