@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { seededRequestIds } from "@/db/seeds/community-data";
+import { demoRuns } from "@/db/seeds/bench-runs-data";
 import { seededReportIds } from "@/db/seeds/reports-data";
 import { demoPassword, demoPeople, demoTools } from "@/db/seeds/people-and-catalogue-data";
 import { demoInstruments, demoProtocols } from "@/db/seeds/workspace-catalogue-data";
@@ -45,6 +46,11 @@ const samplePaths: Record<keyof typeof pageAccess, string> = {
   "/workspace/reports/new": "/workspace/reports/new",
   "/workspace/reports/[id]": `/workspace/reports/${seededReportIds.wrenford}`,
   "/workspace/reports/[id]/view": `/workspace/reports/${seededReportIds.wrenford}/view`,
+  // workspace: runs, captures, analyses (the demo reviewer's own run and its waveform capture)
+  "/workspace/runs": "/workspace/runs",
+  "/workspace/runs/new": "/workspace/runs/new",
+  "/workspace/runs/[id]": `/workspace/runs/${demoRuns[0]!.id}`,
+  "/workspace/runs/[id]/captures/[captureId]": `/workspace/runs/${demoRuns[0]!.id}/captures/${demoRuns[0]!.captures[0]!.id}`,
 };
 
 function demoAccount(role: Role) {
