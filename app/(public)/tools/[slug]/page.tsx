@@ -55,8 +55,9 @@ export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
             In the box
           </h2>
           <ul className="list-disc space-y-1 pl-6">
-            {tool.accessories.map((accessory) => (
-              <li key={`${accessory.kind}-${accessory.name}`}>
+            {/* A static list in the maker's order, and the same nozzle often comes in several sizes: index keys are right here. */}
+            {tool.accessories.map((accessory, index) => (
+              <li key={index}>
                 {accessory.name}
                 {accessory.size ? <span className="figure text-ink-soft"> ({accessory.size})</span> : null}
               </li>

@@ -95,7 +95,7 @@ export function ProtocolForm({ defaults, slug }: { defaults: Record<string, stri
       <TextAreaField
         label="Safety cautions"
         name="safetyCautions"
-        rows={8}
+        rows={11}
         {...field}
         hint="Shown first on the protocol page. One caution per line, starting with “- ”."
       />
