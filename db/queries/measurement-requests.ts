@@ -26,6 +26,8 @@ const summaryColumns = (viewerId: string | null) => ({
   viewerVoted: votedBy(viewerId),
 });
 
+export type MeasurementRequestSummary = Awaited<ReturnType<typeof listMeasurementRequests>>["requests"][number];
+
 function statusFilter(status: RequestListQuery["status"]): SQL {
   return status === "wanted" ? inArray(measurementRequests.status, ["open", "planned"]) : eq(measurementRequests.status, status);
 }

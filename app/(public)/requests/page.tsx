@@ -71,15 +71,7 @@ export default async function RequestsPage({ searchParams }: PageProps<"/request
         <ol className="divide-y divide-rule rounded border border-rule bg-paper-raised">
           {requests.map((request) => (
             <li key={request.id} className="flex gap-4 px-4 py-3">
-              <VoteTally
-                requestId={request.id}
-                status={request.status}
-                merged={request.mergedIntoId !== null}
-                voteCount={request.voteCount}
-                voted={request.viewerVoted}
-                signedIn={Boolean(user)}
-                label={request.toolName}
-              />
+              <VoteTally request={request} signedIn={Boolean(user)} />
               <div className="min-w-0 flex-1 space-y-1">
                 <div className="flex flex-wrap items-center gap-2">
                   <h2 className="font-serif text-lg">

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { Pager } from "@/components/pager";
+import { SelectFilter } from "@/components/select-filter";
 import { listAuditEntries } from "@/db/queries/audit";
 import { auditActionLabels, auditLogQuerySchema, auditSubjectLabels } from "@/lib/audit";
 import { formatDateTime } from "@/lib/format";
@@ -40,25 +41,13 @@ export default async function AuditLogPage({ searchParams }: PageProps<"/desk/au
         Every editorial, moderation and account action, newest first. Each entry was written in the same transaction as the change it
         records.
       </p>
-      <form className="flex flex-wrap items-end gap-3" role="search">
-        <div className="flex flex-col gap-1">
-          <label htmlFor="action" className="text-sm font-semibold">
-            Action
-          </label>
-          <select id="action" name="action" defaultValue={query.action ?? ""} className="rounded border border-rule bg-paper-raised px-3 py-2">
-            <option value="">Every action</option>
-            {Object.entries(auditActionLabels).map(([action, label]) => (
-              <option key={action} value={action}>
-                {label}
-              </option>
-            ))}
-          </select>
-        </div>
-        <button type="submit" className="rounded bg-ink px-4 py-2 font-semibold text-paper-raised">
-          Filter
-        </button>
-        {!parsed.success ? <p className="text-sm text-copper-deep">{parsed.error.issues[0]?.message}</p> : null}
-      </form>
+      <SelectFilter
+        name="action"
+        label="Action"
+        value={query.action ?? ""}
+        problem={parsed.success ? null : parsed.error.issues[0]?.message}
+        options={[{ value: "", label: "Every action" }, ...Object.entries(auditActionLabels).map(([value, label]) => ({ value, label }))]}
+      />
 
       <div className="overflow-x-auto rounded border border-rule bg-paper-raised">
         <table className="w-full min-w-[52rem] text-left text-sm">

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { Pager } from "@/components/pager";
 import { RequestStatusBadge } from "@/components/request-status-badge";
+import { SelectFilter } from "@/components/select-filter";
 import { countMeasurementRequestsByStatus, listMeasurementRequests } from "@/db/queries/measurement-requests";
 import { formatDate } from "@/lib/format";
 import { requirePagePermission } from "@/lib/session";
@@ -26,25 +27,17 @@ export default async function RequestTriagePage({ searchParams }: PageProps<"/de
         Plan what readers want most, decline with a reason, merge duplicates (their votes move, nobody counts twice) and link the
         report that answers a request. Requesters and voters are told of every change by e-mail.
       </p>
-      <form className="flex flex-wrap items-end gap-3" role="search">
-        <div className="flex flex-col gap-1">
-          <label htmlFor="status" className="text-sm font-semibold">
-            Status
-          </label>
-          <select id="status" name="status" defaultValue={query.status} className="rounded border border-rule bg-paper-raised px-3 py-2">
-            <option value="wanted">Open and planned ({counts.open + counts.planned})</option>
-            {requestStatuses.map((status) => (
-              <option key={status} value={status}>
-                {requestStatusLabels[status]} ({counts[status]})
-              </option>
-            ))}
-          </select>
-        </div>
-        <button type="submit" className="rounded bg-ink px-4 py-2 font-semibold text-paper-raised">
-          Show
-        </button>
-        {problem ? <p className="text-sm text-copper-deep">{problem}</p> : null}
-      </form>
+      <SelectFilter
+        name="status"
+        label="Status"
+        value={query.status}
+        submitLabel="Show"
+        problem={problem}
+        options={[
+          { value: "wanted", label: `Open and planned (${counts.open + counts.planned})` },
+          ...requestStatuses.map((status) => ({ value: status, label: `${requestStatusLabels[status]} (${counts[status]})` })),
+        ]}
+      />
 
       <div className="overflow-x-auto rounded border border-rule bg-paper-raised">
         <table className="w-full min-w-[44rem] text-left text-sm">

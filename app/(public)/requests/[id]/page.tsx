@@ -49,15 +49,7 @@ export default async function RequestPage({ params }: PageProps<"/requests/[id]"
         </Link>
       </p>
       <header className="flex gap-4">
-        <VoteTally
-          requestId={request.id}
-          status={request.status}
-          merged={request.mergedIntoId !== null}
-          voteCount={request.voteCount}
-          voted={request.viewerVoted}
-          signedIn={Boolean(user)}
-          label={request.toolName}
-        />
+        <VoteTally request={request} signedIn={Boolean(user)} />
         <div className="space-y-2">
           <p className="text-sm font-semibold uppercase tracking-widest text-copper">Measurement request</p>
           <h1 className="font-serif text-3xl sm:text-4xl">

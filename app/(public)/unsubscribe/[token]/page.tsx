@@ -22,7 +22,7 @@ export default async function UnsubscribePage({ params, searchParams }: PageProp
       {parsed.success && done ? (
         <>
           <p role="status" className="border-l-4 border-verdigris bg-verdigris-wash px-4 py-3">
-            Done: you will no longer receive e-mails about <strong>{notificationTopicDetails[parsed.data.topic].label.toLowerCase()}</strong>.
+            Done: you will no longer receive e-mails about “<strong>{notificationTopicDetails[parsed.data.topic].label}</strong>”.
           </p>
           <p className="text-ink-soft">
             Other e-mails stay as they were. Mail about your account itself, such as password resets, is always sent.
