@@ -54,7 +54,8 @@ export function SelectField({
         id={select.id ?? name}
         name={name}
         aria-invalid={messages?.length ? true : undefined}
-        className="rounded border border-rule bg-paper-raised px-3 py-2 text-base text-ink"
+        aria-describedby={messages?.length ? `${select.id ?? name}-error` : undefined}
+        className="rounded border border-rule bg-paper-raised px-3 py-2 text-base text-ink aria-invalid:border-copper"
         {...select}
       >
         {children}
