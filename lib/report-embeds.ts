@@ -5,6 +5,7 @@
 
 import { z } from "zod";
 import type { DisplaySeries, MeasurementKind } from "@/db/schema";
+import { measurementKindInfo } from "@/lib/measurement-kinds";
 
 const nullableNumber = z.number().nullable();
 
@@ -133,3 +134,98 @@ export type ReportEmbeds = {
   images: Record<string, EmbedImage>;
   tools: EmbedTool[];
 };
+
+/**
+ * What a report's figures are made from, as the database holds it: the cited analyses (their stored results and
+ * display series), the measurements of their runs, the tools' ratings and the images. Plain JSON, so a published
+ * revision can keep it frozen and feed the same assembly as a draft does.
+ */
+export type ReportEmbedSources = {
+  analyses: {
+    label: string;
+    analysisId: string;
+    status: EmbedAnalysis["status"];
+    analysisVersion: string | null;
+    result: Record<string, unknown> | null;
+    displaySeries: DisplaySeries | null;
+    captureKind: EmbedAnalysis["captureKind"];
+    captureFileName: string;
+    runId: string;
+    testedOn: string;
+    labName: string;
+    toolId: string;
+    toolSlug: string;
+    toolName: string;
+  }[];
+  tools: ({ id: string; slug: string; name: string } & EmbedTool["ratings"])[];
+  measurements: {
+    runId: string;
+    analysisId: string | null;
+    kind: MeasurementKind;
+    source: EmbedMeasurement["source"];
+    value: number;
+    unit: string;
+    expandedUncertainty: number | null;
+    verdict: unknown;
+  }[];
+  images: { id: string; name: string; altText: string; width: number; height: number }[];
+};
+
+function readVerdict(value: unknown): StoredVerdict | null {
+  const parsed = storedVerdictSchema.safeParse(value);
+  return parsed.success ? parsed.data : null;
+}
+
+/** The figures' data from their sources: each cited analysis by label with its verdicts, each tool with its measurements. */
+export function assembleReportEmbeds({ analyses: cited, tools: toolRows, measurements: measurementRows, images: imageRows }: ReportEmbedSources): ReportEmbeds {
+  const embedMeasurement = (row: ReportEmbedSources["measurements"][number]): EmbedMeasurement => ({
+    kind: row.kind,
+    quantity: measurementKindInfo[row.kind].label,
+    unit: row.unit,
+    value: row.value,
+    expandedUncertainty: row.expandedUncertainty,
+    source: row.source,
+    verdict: readVerdict(row.verdict),
+  });
+
+  const analysesByLabel: Record<string, EmbedAnalysis> = {};
+  for (const row of cited) {
+    const waveform = row.captureKind === "waveform" ? readWaveformFigures(row.result) : null;
+    const verdicts: VerdictRow[] = measurementRows
+      .filter((measurement) => measurement.analysisId === row.analysisId)
+      .map(embedMeasurement)
+      .flatMap((measurement) => (measurement.verdict ? [{ quantity: measurement.quantity, unit: measurement.unit, verdict: measurement.verdict }] : []));
+    // An analysis stored before its verdicts became measurement rows still carries the power-input verdict itself.
+    if (verdicts.length === 0 && waveform?.verdict) {
+      verdicts.push({ quantity: measurementKindInfo.power_input_full_demand.label, unit: "W", verdict: waveform.verdict });
+    }
+    analysesByLabel[row.label] = {
+      label: row.label,
+      analysisId: row.analysisId,
+      captureKind: row.captureKind,
+      captureFileName: row.captureFileName,
+      status: row.status,
+      analysisVersion: row.analysisVersion,
+      run: { id: row.runId, testedOn: row.testedOn, labName: row.labName },
+      tool: { slug: row.toolSlug, name: row.toolName },
+      waveform,
+      heatUp: row.captureKind === "heat_up_log" ? readHeatUpFigures(row.result) : null,
+      displaySeries: row.displaySeries,
+      verdicts,
+    };
+  }
+
+  const runToolById = new Map(cited.map((row) => [row.runId, row.toolId]));
+  return {
+    analyses: analysesByLabel,
+    images: Object.fromEntries(
+      imageRows.map((image) => [image.name, { name: image.name, src: `/api/report-images/${image.id}`, altText: image.altText, width: image.width, height: image.height }]),
+    ),
+    tools: toolRows.map(({ id, slug, name, ...ratings }) => ({
+      slug,
+      name,
+      ratings,
+      measurements: measurementRows.filter((measurement) => runToolById.get(measurement.runId) === id).map(embedMeasurement),
+    })),
+  };
+}

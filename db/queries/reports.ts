@@ -18,17 +18,7 @@ import {
 } from "@/db/schema";
 import type { Viewer } from "@/db/queries/runs";
 import { can } from "@/lib/authz";
-import { measurementKindInfo } from "@/lib/measurement-kinds";
-import {
-  readHeatUpFigures,
-  readWaveformFigures,
-  storedVerdictSchema,
-  type EmbedAnalysis,
-  type EmbedMeasurement,
-  type ReportEmbeds,
-  type StoredVerdict,
-  type VerdictRow,
-} from "@/lib/report-embeds";
+import { assembleReportEmbeds, type ReportEmbeds, type ReportEmbedSources } from "@/lib/report-embeds";
 
 /** Reviewers see and change only the reports they wrote; editors every report. Every report query puts this in its WHERE. */
 export function reportScope(viewer: Viewer): SQL | undefined {
@@ -310,19 +300,15 @@ export async function listImagesWithoutAltText(tx: Transaction, { reportId }: { 
     .where(and(eq(reportImages.reportId, reportId), sql`btrim(${reportImages.altText}) = ''`));
 }
 
-function readVerdict(value: unknown): StoredVerdict | null {
-  const parsed = storedVerdictSchema.safeParse(value);
-  return parsed.success ? parsed.data : null;
-}
-
 /**
  * Everything a report's embedded figures draw from: its cited analyses (exactly those, never a newer re-analysis),
  * the measurements those analyses produced plus the manual readings of the same runs, its tools' ratings and its
- * images. Call only after checking the viewer may see the report.
+ * images. Takes a transaction so publishing can freeze exactly what it checked. Call only after checking the viewer
+ * may see the report.
  */
-export async function loadReportEmbeds({ reportId }: { reportId: string }): Promise<ReportEmbeds> {
+export async function loadReportEmbedSources(tx: Transaction, { reportId }: { reportId: string }): Promise<ReportEmbedSources> {
   const [cited, toolRows, imageRows] = await Promise.all([
-    db
+    tx
       .select({
         label: reportAnalyses.label,
         analysisId: analyses.id,
@@ -346,8 +332,9 @@ export async function loadReportEmbeds({ reportId }: { reportId: string }): Prom
       .innerJoin(labs, eq(labs.id, testRuns.labId))
       .innerJoin(tools, eq(tools.id, testRuns.toolId))
       .innerJoin(makers, eq(makers.id, tools.makerId))
-      .where(eq(reportAnalyses.reportId, reportId)),
-    db
+      .where(eq(reportAnalyses.reportId, reportId))
+      .orderBy(asc(reportAnalyses.label)),
+    tx
       .select({
         id: tools.id,
         slug: tools.slug,
@@ -366,16 +353,17 @@ export async function loadReportEmbeds({ reportId }: { reportId: string }): Prom
       .innerJoin(makers, eq(makers.id, tools.makerId))
       .where(eq(reportTools.reportId, reportId))
       .orderBy(asc(reportTools.position)),
-    db
+    tx
       .select({ id: reportImages.id, name: reportImages.name, altText: reportImages.altText, width: reportImages.width, height: reportImages.height })
       .from(reportImages)
-      .where(eq(reportImages.reportId, reportId)),
+      .where(eq(reportImages.reportId, reportId))
+      .orderBy(asc(reportImages.name)),
   ]);
 
   const analysisIds = cited.map((row) => row.analysisId);
   const runIds = [...new Set(cited.map((row) => row.runId))];
   const measurementRows = runIds.length
-    ? await db
+    ? await tx
         .select({
           runId: measurements.runId,
           analysisId: measurements.analysisId,
@@ -393,59 +381,16 @@ export async function loadReportEmbeds({ reportId }: { reportId: string }): Prom
             or(eq(measurements.source, "manual"), analysisIds.length ? inArray(measurements.analysisId, analysisIds) : sql`false`),
           ),
         )
-        .orderBy(asc(measurements.kind))
+        .orderBy(asc(measurements.kind), asc(measurements.createdAt))
     : [];
 
-  const embedMeasurement = (row: (typeof measurementRows)[number]): EmbedMeasurement => ({
-    kind: row.kind,
-    quantity: measurementKindInfo[row.kind].label,
-    unit: row.unit,
-    value: row.value,
-    expandedUncertainty: row.expandedUncertainty,
-    source: row.source,
-    verdict: readVerdict(row.verdict),
-  });
+  return { analyses: cited, tools: toolRows, measurements: measurementRows, images: imageRows };
+}
 
-  const analysesByLabel: Record<string, EmbedAnalysis> = {};
-  for (const row of cited) {
-    const waveform = row.captureKind === "waveform" ? readWaveformFigures(row.result) : null;
-    const verdicts: VerdictRow[] = measurementRows
-      .filter((measurement) => measurement.analysisId === row.analysisId)
-      .map(embedMeasurement)
-      .flatMap((measurement) => (measurement.verdict ? [{ quantity: measurement.quantity, unit: measurement.unit, verdict: measurement.verdict }] : []));
-    // An analysis stored before its verdicts became measurement rows still carries the power-input verdict itself.
-    if (verdicts.length === 0 && waveform?.verdict) {
-      verdicts.push({ quantity: measurementKindInfo.power_input_full_demand.label, unit: "W", verdict: waveform.verdict });
-    }
-    analysesByLabel[row.label] = {
-      label: row.label,
-      analysisId: row.analysisId,
-      captureKind: row.captureKind,
-      captureFileName: row.captureFileName,
-      status: row.status,
-      analysisVersion: row.analysisVersion,
-      run: { id: row.runId, testedOn: row.testedOn, labName: row.labName },
-      tool: { slug: row.toolSlug, name: row.toolName },
-      waveform,
-      heatUp: row.captureKind === "heat_up_log" ? readHeatUpFigures(row.result) : null,
-      displaySeries: row.displaySeries,
-      verdicts,
-    };
-  }
-
-  const runToolById = new Map(cited.map((row) => [row.runId, row.toolId]));
-  return {
-    analyses: analysesByLabel,
-    images: Object.fromEntries(
-      imageRows.map((image) => [image.name, { name: image.name, src: `/api/report-images/${image.id}`, altText: image.altText, width: image.width, height: image.height }]),
-    ),
-    tools: toolRows.map(({ id, slug, name, ...ratings }) => ({
-      slug,
-      name,
-      ratings,
-      measurements: measurementRows.filter((measurement) => runToolById.get(measurement.runId) === id).map(embedMeasurement),
-    })),
-  };
+/** The figures' data for a report as it stands now (a draft, or what the desk is about to approve). */
+export async function loadReportEmbeds({ reportId }: { reportId: string }): Promise<ReportEmbeds> {
+  // One read-only snapshot, so the figures and the measurements beside them come from the same moment.
+  return assembleReportEmbeds(await db.transaction((tx) => loadReportEmbedSources(tx, { reportId }), { accessMode: "read only" }));
 }
 
 /** The names a report's body may use: its citation labels, its image names and its tools' slugs. */
