@@ -29,7 +29,7 @@ export async function createTool() {
       claimedHeatUpSeconds: 30,
     })
     .returning({ id: tools.id, slug: tools.slug });
-  return tool!;
+  return { ...tool!, name: `Testmaker ${suffix} HA-${suffix}` };
 }
 
 export async function createRun({ reviewerId, toolId }: { reviewerId: string; toolId: string }) {

@@ -47,9 +47,9 @@ export function CitationsPanel({ reportId, citations, citable }: { reportId: str
         schema={citeAnalysisSchema}
         hidden={{ reportId }}
         submitLabel="Cite"
-        className="grid max-w-3xl gap-3 rounded border border-rule bg-paper-sunk p-3 sm:grid-cols-[1fr_14rem]"
+        className="flex max-w-3xl flex-col gap-3 rounded border border-rule bg-paper-sunk p-3"
         fields={(errors, values) => (
-          <>
+          <div className="grid gap-3 sm:grid-cols-[minmax(0,1fr)_14rem] [&>*]:min-w-0">
             <SelectField label="Analysis" name="analysisId" errors={errors} defaultValue={values?.analysisId ?? ""} key={values?.analysisId}>
               <option value="">{citable.length ? "Choose a finished analysis…" : "No finished analysis of this report's tools yet"}</option>
               {citable.map((row) => (
@@ -59,7 +59,7 @@ export function CitationsPanel({ reportId, citations, citable }: { reportId: str
               ))}
             </SelectField>
             <TextField label="Label" name="label" errors={errors} values={values} key={values?.label} placeholder="e.g. full-power" hint="Lower case, digits, hyphens." />
-          </>
+          </div>
         )}
       />
     </section>

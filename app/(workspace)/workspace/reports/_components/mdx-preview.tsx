@@ -8,6 +8,7 @@ import { renderSafeTree } from "@/lib/mdx/render-tree";
 import type { ReportEmbeds } from "@/lib/report-embeds";
 
 type Preview = { tree: Root | null; problems: MdxProblem[]; embeds: ReportEmbeds };
+type Compiled = Preview & { source: string };
 
 const DEBOUNCE_MS = 400;
 
@@ -17,13 +18,12 @@ const DEBOUNCE_MS = 400;
  * the request still in flight, so an older answer never overwrites a newer one.
  */
 export function MdxPreview({ reportId, source }: { reportId: string; source: string }) {
-  const [preview, setPreview] = useState<Preview | null>(null);
-  const [state, setState] = useState<"compiling" | "ready" | "failed">("compiling");
+  const [preview, setPreview] = useState<Compiled | null>(null);
+  const [failedSource, setFailedSource] = useState<string | null>(null);
 
   useEffect(() => {
     const controller = new AbortController();
     const timer = setTimeout(async () => {
-      setState("compiling");
       try {
         const response = await fetch(`/api/reports/${reportId}/preview`, {
           method: "POST",
@@ -32,12 +32,12 @@ export function MdxPreview({ reportId, source }: { reportId: string; source: str
           signal: controller.signal,
         });
         if (!response.ok) throw new Error(`preview answered ${response.status}`);
-        setPreview((await response.json()) as Preview);
-        setState("ready");
+        setPreview({ ...((await response.json()) as Preview), source });
+        setFailedSource(null);
       } catch (error) {
         if (!controller.signal.aborted) {
           console.error(error);
-          setState("failed");
+          setFailedSource(source);
         }
       }
     }, DEBOUNCE_MS);
@@ -48,6 +48,8 @@ export function MdxPreview({ reportId, source }: { reportId: string; source: str
   }, [reportId, source]);
 
   const components = useMemo(() => (preview ? embedComponents(preview.embeds) : null), [preview]);
+  // Derived rather than stored, so the label turns to "Updating…" on the keystroke itself, not when the request starts.
+  const state = failedSource === source ? "failed" : preview?.source === source ? "ready" : "compiling";
 
   return (
     <section aria-labelledby="preview-heading" className="flex min-w-0 flex-col gap-2">
