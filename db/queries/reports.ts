@@ -1,5 +1,6 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, like, notInArray, or, sql, type SQL } from "drizzle-orm";
+import type { SelectedFields } from "drizzle-orm/pg-core";
 import { db, type Transaction } from "@/db";
 import {
   analyses,
@@ -29,6 +30,24 @@ export function reportScope(viewer: Viewer): SQL | undefined {
 export const editableReportStatuses: readonly ReportStatus[] = ["draft", "changes_requested"];
 
 const toolName = sql<string>`${makers.name} || ' ' || ${tools.model}`;
+
+/**
+ * A report's citations with the analysis, capture, run, lab and tool each one points at, in label order: the one
+ * join every view of a report's cited data starts from.
+ */
+function selectCitations<Columns extends SelectedFields>(executor: typeof db | Transaction, reportId: string, columns: Columns) {
+  return executor
+    .select(columns)
+    .from(reportAnalyses)
+    .innerJoin(analyses, eq(analyses.id, reportAnalyses.analysisId))
+    .innerJoin(captures, eq(captures.id, analyses.captureId))
+    .innerJoin(testRuns, eq(testRuns.id, captures.runId))
+    .innerJoin(labs, eq(labs.id, testRuns.labId))
+    .innerJoin(tools, eq(tools.id, testRuns.toolId))
+    .innerJoin(makers, eq(makers.id, tools.makerId))
+    .where(eq(reportAnalyses.reportId, reportId))
+    .orderBy(asc(reportAnalyses.label));
+}
 
 export async function listReports({ viewer }: { viewer: Viewer }) {
   const rows = await db
@@ -84,27 +103,18 @@ export async function getReport({ id, viewer }: { id: string; viewer: Viewer }) 
       .innerJoin(makers, eq(makers.id, tools.makerId))
       .where(eq(reportTools.reportId, id))
       .orderBy(asc(reportTools.position)),
-    db
-      .select({
-        label: reportAnalyses.label,
-        analysisId: analyses.id,
-        status: analyses.status,
-        finishedAt: analyses.finishedAt,
-        captureKind: captures.kind,
-        captureFileName: captures.fileName,
-        runId: testRuns.id,
-        testedOn: testRuns.testedOn,
-        unit: testRuns.unit,
-        toolName,
-      })
-      .from(reportAnalyses)
-      .innerJoin(analyses, eq(analyses.id, reportAnalyses.analysisId))
-      .innerJoin(captures, eq(captures.id, analyses.captureId))
-      .innerJoin(testRuns, eq(testRuns.id, captures.runId))
-      .innerJoin(tools, eq(tools.id, testRuns.toolId))
-      .innerJoin(makers, eq(makers.id, tools.makerId))
-      .where(eq(reportAnalyses.reportId, id))
-      .orderBy(asc(reportAnalyses.label)),
+    selectCitations(db, id, {
+      label: reportAnalyses.label,
+      analysisId: analyses.id,
+      status: analyses.status,
+      finishedAt: analyses.finishedAt,
+      captureKind: captures.kind,
+      captureFileName: captures.fileName,
+      runId: testRuns.id,
+      testedOn: testRuns.testedOn,
+      unit: testRuns.unit,
+      toolName,
+    }),
     db
       .select({ id: reportImages.id, name: reportImages.name, altText: reportImages.altText, width: reportImages.width, height: reportImages.height })
       .from(reportImages)
@@ -308,32 +318,22 @@ export async function listImagesWithoutAltText(tx: Transaction, { reportId }: { 
  */
 export async function loadReportEmbedSources(tx: Transaction, { reportId }: { reportId: string }): Promise<ReportEmbedSources> {
   const [cited, toolRows, imageRows] = await Promise.all([
-    tx
-      .select({
-        label: reportAnalyses.label,
-        analysisId: analyses.id,
-        status: analyses.status,
-        analysisVersion: analyses.analysisVersion,
-        result: analyses.result,
-        displaySeries: analyses.displaySeries,
-        captureKind: captures.kind,
-        captureFileName: captures.fileName,
-        runId: testRuns.id,
-        testedOn: testRuns.testedOn,
-        labName: labs.name,
-        toolId: tools.id,
-        toolSlug: tools.slug,
-        toolName,
-      })
-      .from(reportAnalyses)
-      .innerJoin(analyses, eq(analyses.id, reportAnalyses.analysisId))
-      .innerJoin(captures, eq(captures.id, analyses.captureId))
-      .innerJoin(testRuns, eq(testRuns.id, captures.runId))
-      .innerJoin(labs, eq(labs.id, testRuns.labId))
-      .innerJoin(tools, eq(tools.id, testRuns.toolId))
-      .innerJoin(makers, eq(makers.id, tools.makerId))
-      .where(eq(reportAnalyses.reportId, reportId))
-      .orderBy(asc(reportAnalyses.label)),
+    selectCitations(tx, reportId, {
+      label: reportAnalyses.label,
+      analysisId: analyses.id,
+      status: analyses.status,
+      analysisVersion: analyses.analysisVersion,
+      result: analyses.result,
+      displaySeries: analyses.displaySeries,
+      captureKind: captures.kind,
+      captureFileName: captures.fileName,
+      runId: testRuns.id,
+      testedOn: testRuns.testedOn,
+      labName: labs.name,
+      toolId: tools.id,
+      toolSlug: tools.slug,
+      toolName,
+    }),
     tx
       .select({
         id: tools.id,
