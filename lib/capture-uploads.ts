@@ -22,11 +22,21 @@ export function captureObjectKey({ runId, captureId, fileName }: { runId: string
  * so a confirmation in progress keeps its row, and the object goes before the row: if the row's delete failed, the
  * next run would find it again, never an object with no row to lead to it.
  */
-export async function cleanUpAbandonedUploads({ olderThan, batch = 100 }: { olderThan: Date; batch?: number }) {
+export async function cleanUpAbandonedUploads({
+  olderThan,
+  prefix = CAPTURE_PREFIX,
+  batch = 100,
+}: {
+  olderThan: Date;
+  /** Narrows the sweep to keys under this prefix (one run's captures, say); it must lie under the captures prefix. */
+  prefix?: string;
+  batch?: number;
+}) {
+  if (!prefix.startsWith(CAPTURE_PREFIX)) throw new Error(`clean-up is limited to keys under ${CAPTURE_PREFIX}`);
   let rows = 0;
   for (;;) {
     const removed = await db.transaction(async (tx) => {
-      const abandoned = await lockAbandonedCaptures(tx, { olderThan, limit: batch });
+      const abandoned = await lockAbandonedCaptures(tx, { olderThan, keyPrefix: prefix, limit: batch });
       for (const capture of abandoned) {
         await deleteObject(capture.objectKey);
         await deleteCaptureRow(tx, { id: capture.id });
@@ -41,7 +51,7 @@ export async function cleanUpAbandonedUploads({ olderThan, batch = 100 }: { olde
   let continuationToken: string | undefined;
   do {
     const page = await getObjectStorageClient().send(
-      new ListObjectsV2Command({ Bucket: objectStorageBucket(), Prefix: CAPTURE_PREFIX, ContinuationToken: continuationToken }),
+      new ListObjectsV2Command({ Bucket: objectStorageBucket(), Prefix: prefix, ContinuationToken: continuationToken }),
     );
     // Objects younger than the cut-off may be uploads whose row is being written right now.
     const old = (page.Contents ?? []).filter((object) => object.Key && object.LastModified && object.LastModified < olderThan);

@@ -68,11 +68,11 @@ export async function deleteCaptureRow(tx: Transaction, { id }: { id: string }) 
 }
 
 /** Uploads begun before `olderThan` and never confirmed; locked, and skipped when a confirmation holds the row. */
-export async function lockAbandonedCaptures(tx: Transaction, { olderThan, limit }: { olderThan: Date; limit: number }) {
+export async function lockAbandonedCaptures(tx: Transaction, { olderThan, keyPrefix, limit }: { olderThan: Date; keyPrefix: string; limit: number }) {
   return tx
     .select({ id: captures.id, objectKey: captures.objectKey })
     .from(captures)
-    .where(and(eq(captures.status, "awaiting_upload"), lt(captures.createdAt, olderThan)))
+    .where(and(eq(captures.status, "awaiting_upload"), lt(captures.createdAt, olderThan), sql`starts_with(${captures.objectKey}, ${keyPrefix})`))
     .for("update", { skipLocked: true })
     .limit(limit);
 }

@@ -29,6 +29,10 @@ const statusLabels = {
   failed: "Analysis failed",
 } as const;
 
+function formatBytes(bytes: number): string {
+  return bytes < 1024 * 1024 ? `${formatNumber(bytes / 1024, 3)} KB` : `${formatNumber(bytes / 1024 / 1024, 3)} MB`;
+}
+
 function runFormValues(run: NonNullable<Awaited<ReturnType<typeof getRun>>>): RunFormValues {
   const text = (value: number | string | null) => (value === null ? "" : String(value));
   return {
@@ -266,7 +270,7 @@ export default async function RunPage({ params }: PageProps<"/workspace/runs/[id
                     <span className="font-semibold">{capture.fileName}</span>
                   )}
                   <span className="block text-xs text-ink-faint">
-                    {captureKindLabels[capture.kind]} · {formatNumber(capture.declaredBytes / 1024 / 1024, 3)} MB
+                    {captureKindLabels[capture.kind]} · {formatBytes(capture.declaredBytes)}
                   </span>
                 </span>
                 <span className="text-xs font-semibold uppercase tracking-wide text-ink-soft">
@@ -290,7 +294,7 @@ export default async function RunPage({ params }: PageProps<"/workspace/runs/[id
           <div className="mt-4">
             <RunForm
               choices={{ labs: choices.labs, tools: choices.tools, protocolVersions: choices.protocolVersions, instruments: choices.instruments }}
-              edit={{ runId: run.id, values: runFormValues(run), instrumentIds: instruments.map((entry) => entry.instrumentId) }}
+              edit={{ runId: run.id, labId: run.lab.id, values: runFormValues(run), instrumentIds: instruments.map((entry) => entry.instrumentId) }}
             />
           </div>
         </details>

@@ -14,7 +14,7 @@ export type RunFormChoices = {
   labs: Choice[];
   tools: Choice[];
   protocolVersions: { id: string; protocolName: string; version: number; conditions: ProtocolConditions }[];
-  instruments: { id: string; kind: string; maker: string; model: string; serialNumber: string; calibrationDueOn: string }[];
+  instruments: { id: string; labId: string | null; kind: string; maker: string; model: string; serialNumber: string; calibrationDueOn: string }[];
 };
 
 /** Field values as the form's inputs hold them (strings), for an edit form or a refusal's echo. */
@@ -38,14 +38,23 @@ function conditionDefaults(conditions: ProtocolConditions | undefined): RunFormV
 
 const today = () => new Date().toISOString().slice(0, 10);
 
+const firstLab = (choices: RunFormChoices) => choices.labs[0]?.id ?? "";
+
 /**
  * New runs pick a lab, a tool and the latest version of a protocol, whose conditions fill the condition fields; an
  * edit keeps those three, since another tool or protocol version would be another run.
  */
-export function RunForm({ choices, edit }: { choices: RunFormChoices; edit?: { runId: string; values: RunFormValues; instrumentIds: string[] } }) {
+export function RunForm({
+  choices,
+  edit,
+}: {
+  choices: RunFormChoices;
+  edit?: { runId: string; labId: string; values: RunFormValues; instrumentIds: string[] };
+}) {
   const [state, formAction, pending] = useCheckedAction(edit ? updateRun : createRun, edit ? runUpdateSchema : runFormSchema);
   const [protocolVersionId, setProtocolVersionId] = useState(edit ? "" : (choices.protocolVersions[0]?.id ?? ""));
   const [testedOn, setTestedOn] = useState(edit?.values.testedOn ?? today());
+  const [labId, setLabId] = useState(edit?.labId ?? firstLab(choices));
   const errors = state.fieldErrors;
   const protocol = choices.protocolVersions.find((version) => version.id === protocolVersionId);
   const values: RunFormValues = state.values ?? { ...(edit?.values ?? {}), ...conditionDefaults(protocol?.conditions) };
@@ -61,7 +70,7 @@ export function RunForm({ choices, edit }: { choices: RunFormChoices; edit?: { r
       {!edit ? (
         <fieldset className="grid gap-4 sm:grid-cols-3">
           <legend className="mb-2 font-serif text-xl">What is tested</legend>
-          <SelectField label="Lab" name="labId" errors={errors} defaultValue={values.labId ?? choices.labs[0]?.id}>
+          <SelectField label="Lab" name="labId" errors={errors} value={labId} onChange={(event) => setLabId(event.target.value)}>
             {choices.labs.map((lab) => (
               <option key={lab.id} value={lab.id}>
                 {lab.name}
@@ -110,9 +119,11 @@ export function RunForm({ choices, edit }: { choices: RunFormChoices; edit?: { r
 
       <fieldset aria-describedby={errors?.instrumentIds ? "instrumentIds-error" : undefined}>
         <legend className="mb-2 font-serif text-xl">Instruments used</legend>
-        <p className="mb-3 text-sm text-ink-soft">The run keeps each instrument&apos;s accuracy and calibration as they are today.</p>
+        <p className="mb-3 text-sm text-ink-soft">
+          The lab&apos;s instruments and shared ones. The run keeps each instrument&apos;s accuracy and calibration as they are today.
+        </p>
         <ul className="grid gap-2 sm:grid-cols-2">
-          {choices.instruments.map((instrument) => {
+          {choices.instruments.filter((instrument) => instrument.labId === null || instrument.labId === labId).map((instrument) => {
             const overdue = isCalibrationOverdue(instrument.calibrationDueOn, testedOn);
             return (
               <li key={instrument.id}>

@@ -27,7 +27,7 @@ const columns = [
       </Link>
     ),
   }),
-  column.accessor("testedOn", { header: "Tested on", meta: { numeric: true } }),
+  column.accessor("testedOn", { header: "Tested on", cell: ({ getValue }) => <span className="figure whitespace-nowrap">{getValue()}</span> }),
   column.accessor("serialNumber", { header: "Unit serial" }),
   column.accessor("labName", { header: "Lab" }),
   column.accessor("protocol", { header: "Protocol" }),
