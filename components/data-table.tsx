@@ -12,6 +12,7 @@ import {
   type SortDirection,
   type SortingState,
 } from "@tanstack/react-table";
+import Link from "next/link";
 import { useId, useState, type ReactNode } from "react";
 
 declare module "@tanstack/react-table" {
@@ -46,6 +47,7 @@ export function DataTable<Row>({
   pageSize = 20,
   initialSorting = [],
   minWidth = "40rem",
+  newItem,
   actions,
 }: {
   caption: string;
@@ -60,7 +62,9 @@ export function DataTable<Row>({
   pageSize?: number;
   initialSorting?: SortingState;
   minWidth?: string;
-  /** Beside the filter, e.g. a "New …" link. */
+  /** The page's main way to add a row, shown as a button beside the filter. */
+  newItem?: { href: string; label: string };
+  /** Anything else beside the filter. */
   actions?: ReactNode;
 }) {
   const filterId = useId();
@@ -105,7 +109,16 @@ export function DataTable<Row>({
             className="w-64 max-w-full rounded border border-rule bg-paper-raised px-3 py-2"
           />
         </div>
-        {actions ? <div className="flex flex-wrap gap-2">{actions}</div> : null}
+        {newItem || actions ? (
+          <div className="flex flex-wrap gap-2">
+            {newItem ? (
+              <Link href={newItem.href} className="rounded bg-ink px-4 py-2 font-semibold text-paper-raised hover:bg-ink-soft">
+                {newItem.label}
+              </Link>
+            ) : null}
+            {actions}
+          </div>
+        ) : null}
       </div>
 
       {/* relative: screen-reader-only text in cells is positioned absolutely and must scroll with the table, not widen the page. */}

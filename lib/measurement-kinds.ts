@@ -1,7 +1,5 @@
-import type { MeasurementKind } from "@/db/schema";
-
-// The database enum's values, repeated as a tuple that client code and zod can use without importing the schema;
-// tests/unit/measurement-kinds.test.ts keeps the two equal.
+// The database enum is built from this tuple (db/schema/bench.ts); this module stays free of imports so client code
+// and zod can use it.
 export const measurementKinds = [
   "power_input_full_demand",
   "power_input_at_setpoint",
@@ -16,7 +14,9 @@ export const measurementKinds = [
   "recovery_under_load",
   "tip_to_ground_resistance",
   "leakage_voltage",
-] as const satisfies readonly MeasurementKind[];
+] as const;
+
+export type MeasurementKind = (typeof measurementKinds)[number];
 
 /** What each measured quantity is called on every page, and the unit it is recorded in. */
 export const measurementKindInfo = {

@@ -3,6 +3,42 @@ import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes, TextareaHTML
 type FieldErrors = Record<string, string[] | undefined> | undefined;
 type EchoedValues = Record<string, string> | undefined;
 
+/**
+ * Label, hint and error around one control; the control gets the returned attributes, so a screen reader announces
+ * the hint and the error with it.
+ */
+function LabelledField({
+  name,
+  label,
+  hint,
+  messages,
+  children,
+}: {
+  name: string;
+  label: ReactNode;
+  hint?: ReactNode;
+  messages: string[] | undefined;
+  children: (control: { id: string; "aria-invalid": true | undefined; "aria-describedby": string | undefined }) => ReactNode;
+}) {
+  const describedBy = [hint ? `${name}-hint` : null, messages?.length ? `${name}-error` : null].filter(Boolean).join(" ");
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={name} className="text-sm font-semibold text-ink">
+        {label}
+      </label>
+      {children({ id: name, "aria-invalid": messages?.length ? true : undefined, "aria-describedby": describedBy || undefined })}
+      {hint ? (
+        <p id={`${name}-hint`} className="text-xs text-ink-faint">
+          {hint}
+        </p>
+      ) : null}
+      <FieldError id={`${name}-error`} messages={messages} />
+    </div>
+  );
+}
+
+const textControlClass = "rounded border border-rule bg-paper-raised px-3 py-2 text-base text-ink aria-invalid:border-copper";
+
 export function TextField({
   label,
   name,
@@ -11,29 +47,10 @@ export function TextField({
   hint,
   ...input
 }: { label: string; name: string; errors?: FieldErrors; values?: EchoedValues; hint?: ReactNode } & InputHTMLAttributes<HTMLInputElement>) {
-  const messages = errors?.[name];
-  const describedBy = [hint ? `${name}-hint` : null, messages?.length ? `${name}-error` : null].filter(Boolean).join(" ");
   return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={name} className="text-sm font-semibold text-ink">
-        {label}
-      </label>
-      <input
-        id={name}
-        name={name}
-        aria-invalid={messages?.length ? true : undefined}
-        aria-describedby={describedBy || undefined}
-        className="rounded border border-rule bg-paper-raised px-3 py-2 text-base text-ink aria-invalid:border-copper"
-        defaultValue={values?.[name]}
-        {...input}
-      />
-      {hint ? (
-        <p id={`${name}-hint`} className="text-xs text-ink-faint">
-          {hint}
-        </p>
-      ) : null}
-      <FieldError id={`${name}-error`} messages={messages} />
-    </div>
+    <LabelledField name={name} label={label} hint={hint} messages={errors?.[name]}>
+      {(control) => <input {...control} name={name} className={textControlClass} defaultValue={values?.[name]} {...input} />}
+    </LabelledField>
   );
 }
 
@@ -102,29 +119,10 @@ export function TextAreaField({
   hint,
   ...textarea
 }: { label: string; name: string; errors?: FieldErrors; values?: EchoedValues; hint?: ReactNode } & TextareaHTMLAttributes<HTMLTextAreaElement>) {
-  const messages = errors?.[name];
-  const describedBy = [hint ? `${name}-hint` : null, messages?.length ? `${name}-error` : null].filter(Boolean).join(" ");
   return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={name} className="text-sm font-semibold text-ink">
-        {label}
-      </label>
-      <textarea
-        id={name}
-        name={name}
-        aria-invalid={messages?.length ? true : undefined}
-        aria-describedby={describedBy || undefined}
-        className="rounded border border-rule bg-paper-raised px-3 py-2 text-base text-ink aria-invalid:border-copper"
-        defaultValue={values?.[name]}
-        {...textarea}
-      />
-      {hint ? (
-        <p id={`${name}-hint`} className="text-xs text-ink-faint">
-          {hint}
-        </p>
-      ) : null}
-      <FieldError id={`${name}-error`} messages={messages} />
-    </div>
+    <LabelledField name={name} label={label} hint={hint} messages={errors?.[name]}>
+      {(control) => <textarea {...control} name={name} className={textControlClass} defaultValue={values?.[name]} {...textarea} />}
+    </LabelledField>
   );
 }
 

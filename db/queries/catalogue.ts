@@ -5,13 +5,14 @@ import { makers, tools } from "@/db/schema";
 import type { CatalogueQuery } from "@/lib/validations/catalogue";
 
 /** What the catalogue, the tool page and GET /api/tools show of a tool: its rated specification. */
-const toolSpecColumns = {
+export const toolSpecColumns = {
   slug: tools.slug,
   maker: makers.name,
   makerSlug: makers.slug,
   model: tools.model,
   category: tools.category,
   applianceType: tools.applianceType,
+  motorShareAboveHalf: tools.motorShareAboveHalf,
   ratedPowerW: tools.ratedPowerW,
   ratedVoltageMin: tools.ratedVoltageMin,
   ratedVoltageMax: tools.ratedVoltageMax,

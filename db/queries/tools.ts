@@ -1,6 +1,7 @@
 import "server-only";
 import { asc, count, eq } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
+import { toolSpecColumns } from "@/db/queries/catalogue";
 import { claimFreeSlug } from "@/db/queries/slugs";
 import { makers, toolPhotos, tools } from "@/db/schema";
 import { UserFacingError } from "@/lib/errors";
@@ -31,28 +32,7 @@ export async function listToolsForEditing() {
 /** Every rated field as the edit form shows it. */
 export async function getToolForEditing({ slug }: { slug: string }) {
   const [row] = await db
-    .select({
-      id: tools.id,
-      slug: tools.slug,
-      makerId: tools.makerId,
-      maker: makers.name,
-      model: tools.model,
-      category: tools.category,
-      applianceType: tools.applianceType,
-      motorShareAboveHalf: tools.motorShareAboveHalf,
-      ratedPowerW: tools.ratedPowerW,
-      ratedVoltageMin: tools.ratedVoltageMin,
-      ratedVoltageMax: tools.ratedVoltageMax,
-      ratedFrequenciesHz: tools.ratedFrequenciesHz,
-      ratedAirflowLpm: tools.ratedAirflowLpm,
-      temperatureMinC: tools.temperatureMinC,
-      temperatureMaxC: tools.temperatureMaxC,
-      claimedHeatUpSeconds: tools.claimedHeatUpSeconds,
-      priceMinor: tools.priceMinor,
-      currency: tools.currency,
-      accessories: tools.accessories,
-      summary: tools.summary,
-    })
+    .select({ ...toolSpecColumns, id: tools.id, makerId: tools.makerId })
     .from(tools)
     .innerJoin(makers, eq(makers.id, tools.makerId))
     .where(eq(tools.slug, slug))

@@ -1,22 +1,16 @@
 import { relations } from "drizzle-orm";
 import { date, index, integer, jsonb, pgEnum, pgTable, primaryKey, real, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { instrumentKinds, type AccuracyQuantity } from "../../lib/instrument-kinds";
+import { measurementKinds } from "../../lib/measurement-kinds";
 import { tools } from "./catalogue";
 import { rowIdentity } from "./columns";
 import { labs, users } from "./people";
 
-export const instrumentKindEnum = pgEnum("instrument_kind", [
-  "current_clamp",
-  "oscilloscope",
-  "power_meter",
-  "thermocouple_meter",
-  "anemometer",
-  "resistance_meter",
-  "multimeter",
-]);
+export const instrumentKindEnum = pgEnum("instrument_kind", instrumentKinds);
 
 /** One accuracy line of an instrument's datasheet: ±(percentOfReading % of reading + offset) on a range. */
 export type AccuracyRange = {
-  quantity: "current" | "voltage" | "power" | "temperature" | "air_velocity" | "resistance" | "time";
+  quantity: AccuracyQuantity;
   unit: string;
   rangeMax: number;
   percentOfReading: number;
@@ -40,21 +34,7 @@ export const instruments = pgTable(
   (table) => [uniqueIndex("instruments_serial_unique").on(table.maker, table.model, table.serialNumber)],
 );
 
-export const measurementKindEnum = pgEnum("measurement_kind", [
-  "power_input_full_demand",
-  "power_input_at_setpoint",
-  "standby_power",
-  "inrush_peak_current",
-  "current",
-  "airflow",
-  "heat_up_time",
-  "temperature_vs_setpoint",
-  "temperature_vs_display",
-  "temperature_stability",
-  "recovery_under_load",
-  "tip_to_ground_resistance",
-  "leakage_voltage",
-]);
+export const measurementKindEnum = pgEnum("measurement_kind", measurementKinds);
 
 export type ProtocolConditions = {
   supplyVoltage: number;

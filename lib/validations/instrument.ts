@@ -1,43 +1,9 @@
 import { z } from "zod";
-import type { AccuracyRange, InstrumentKind } from "@/db/schema";
+import type { AccuracyRange } from "@/db/schema";
 import { parseAccuracySpec } from "@/lib/bench/uncertainty";
+import { accuracyQuantities, instrumentKinds } from "@/lib/instrument-kinds";
 import { withIndexedRows } from "@/lib/form-data";
 import { dateField, evenWithFieldErrors, numberField, requiredText } from "@/lib/validations/form-fields";
-
-export const instrumentKinds = [
-  "current_clamp",
-  "oscilloscope",
-  "power_meter",
-  "thermocouple_meter",
-  "anemometer",
-  "resistance_meter",
-  "multimeter",
-] as const satisfies readonly InstrumentKind[];
-
-export const instrumentKindLabels: Record<InstrumentKind, string> = {
-  current_clamp: "Current clamp",
-  oscilloscope: "Oscilloscope",
-  power_meter: "Power meter",
-  thermocouple_meter: "Thermocouple meter",
-  anemometer: "Anemometer",
-  resistance_meter: "Resistance meter",
-  multimeter: "Multimeter",
-};
-
-type Quantity = AccuracyRange["quantity"];
-
-export const accuracyQuantities = ["current", "voltage", "power", "temperature", "air_velocity", "resistance", "time"] as const satisfies readonly Quantity[];
-
-/** Each quantity's name and the unit its ranges and offsets are usually written in. */
-export const accuracyQuantityInfo: Record<Quantity, { label: string; unit: string }> = {
-  current: { label: "Current", unit: "A" },
-  voltage: { label: "Voltage", unit: "V" },
-  power: { label: "Power", unit: "W" },
-  temperature: { label: "Temperature", unit: "°C" },
-  air_velocity: { label: "Air velocity", unit: "m/s" },
-  resistance: { label: "Resistance", unit: "Ω" },
-  time: { label: "Time", unit: "s" },
-};
 
 /** How a datasheet line is written back into the form: "1.5% + 0.05". */
 export function formatAccuracySpec({ percentOfReading, offset }: Pick<AccuracyRange, "percentOfReading" | "offset">): string {

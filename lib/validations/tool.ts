@@ -27,6 +27,11 @@ export const ratedFrequencyChoices = { "50": [50], "60": [60], "50/60": [50, 60]
 /** "" is "not stated": IEC 60335-1 then takes the heating rows, and the verdict says it assumed so. */
 export const motorShareChoices = { "": null, above: true, "not-above": false } as const;
 
+export function motorShareLabel(motorShareAboveHalf: boolean | null): string {
+  if (motorShareAboveHalf === null) return "Not stated";
+  return motorShareAboveHalf ? "More than half" : "Half or less";
+}
+
 export const newMakerChoice = "new";
 
 // Intl knows the ISO 4217 list in Node and every current browser, so the form and the server check the same codes.

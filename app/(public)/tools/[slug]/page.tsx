@@ -1,10 +1,11 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { FigureList } from "@/components/figure-list";
 import { getToolBySlug } from "@/db/queries/catalogue";
 import { listToolPhotos } from "@/db/queries/tool-photos";
 import { formatFrequencies, formatOptional, formatPrice, formatRange, formatRatedVoltage } from "@/lib/format";
 import { toolCategoryLabels } from "@/lib/validations/catalogue";
-import { applianceTypeLabels } from "@/lib/validations/tool";
+import { applianceTypeLabels, motorShareLabel } from "@/lib/validations/tool";
 import { ToolPhotoGallery } from "./_components/tool-photo-gallery";
 
 export async function generateMetadata({ params }: PageProps<"/tools/[slug]">): Promise<Metadata> {
@@ -24,6 +25,7 @@ export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
     ["Temperature range", formatRange(tool.temperatureMinC, tool.temperatureMaxC, "°C")],
     ["Claimed heat-up time", formatOptional(tool.claimedHeatUpSeconds, "s")],
     ["Appliance type (IEC 60335-1)", applianceTypeLabels[tool.applianceType]],
+    ...(tool.applianceType === "combined" ? [["Motor's share of rated power", motorShareLabel(tool.motorShareAboveHalf)] as [string, string]] : []),
     ["Price", formatPrice(tool.priceMinor, tool.currency)],
   ];
   return (
@@ -40,14 +42,7 @@ export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
         <h2 id="ratings-heading" className="mb-3 font-serif text-2xl">
           Ratings as the maker states them
         </h2>
-        <dl className="divide-y divide-rule rounded border border-rule bg-paper-raised">
-          {ratings.map(([label, value]) => (
-            <div key={label} className="grid grid-cols-2 gap-4 px-4 py-2">
-              <dt className="text-ink-soft">{label}</dt>
-              <dd className="figure">{value}</dd>
-            </div>
-          ))}
-        </dl>
+        <FigureList rows={ratings} />
       </section>
       {tool.accessories.length ? (
         <section aria-labelledby="accessories-heading" className="max-w-2xl">

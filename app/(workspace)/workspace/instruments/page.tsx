@@ -2,7 +2,8 @@ import type { Metadata } from "next";
 import { listInstruments } from "@/db/queries/instruments";
 import { isCalibrationOverdue } from "@/lib/calibration";
 import { requirePagePermission } from "@/lib/session";
-import { accuracyQuantityInfo, formatAccuracySpec, instrumentKindLabels } from "@/lib/validations/instrument";
+import { accuracyQuantityInfo, instrumentKindLabels } from "@/lib/instrument-kinds";
+import { formatAccuracySpec } from "@/lib/validations/instrument";
 import { InstrumentsTable } from "./_components/instruments-table";
 
 export const metadata: Metadata = { title: "Instruments register" };

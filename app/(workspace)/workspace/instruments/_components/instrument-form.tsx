@@ -4,14 +4,8 @@ import { createInstrument, updateInstrument } from "@/app/(workspace)/workspace/
 import { FormStatus, SelectField, SubmitButton, TextField } from "@/components/ui/form-controls";
 import { countIndexedRows, RepeatingRows } from "@/components/ui/repeating-rows";
 import { useCheckedAction } from "@/components/ui/use-checked-action";
-import {
-  accuracyQuantities,
-  accuracyQuantityInfo,
-  instrumentFormSchema,
-  instrumentKindLabels,
-  instrumentKinds,
-  instrumentUpdateSchema,
-} from "@/lib/validations/instrument";
+import { accuracyQuantities, accuracyQuantityInfo, instrumentKindLabels, instrumentKinds } from "@/lib/instrument-kinds";
+import { instrumentFormSchema, instrumentUpdateSchema } from "@/lib/validations/instrument";
 
 type Lab = { id: string; name: string };
 

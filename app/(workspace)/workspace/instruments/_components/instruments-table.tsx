@@ -59,11 +59,7 @@ export function InstrumentsTable({ instruments }: { instruments: InstrumentRow[]
       emptyMessage="No instruments registered yet."
       initialSorting={[{ id: "calibrationDueOn", desc: false }]}
       minWidth="56rem"
-      actions={
-        <Link href="/workspace/instruments/new" className="rounded bg-ink px-4 py-2 font-semibold text-paper-raised hover:bg-ink-soft">
-          New instrument
-        </Link>
-      }
+      newItem={{ href: "/workspace/instruments/new", label: "New instrument" }}
     />
   );
 }

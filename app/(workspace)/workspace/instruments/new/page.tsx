@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { BackLink } from "@/components/back-link";
 import { listLabsForInstruments } from "@/db/queries/instruments";
 import { requirePagePermission } from "@/lib/session";
 import { InstrumentForm } from "../_components/instrument-form";
@@ -11,11 +11,7 @@ export default async function NewInstrumentPage() {
   const labs = await listLabsForInstruments({ user });
   return (
     <section className="max-w-3xl space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm">
-        <Link href="/workspace/instruments" className="text-verdigris-deep hover:text-copper">
-          ← Instruments register
-        </Link>
-      </nav>
+      <BackLink href="/workspace/instruments">Instruments register</BackLink>
       <h1 className="font-serif text-3xl">New instrument</h1>
       <InstrumentForm labs={labs} defaults={{ labId: labs[0]?.id ?? "" }} />
     </section>

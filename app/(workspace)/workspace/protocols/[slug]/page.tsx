@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { BackLink } from "@/components/back-link";
 import { notFound } from "next/navigation";
 import { getProtocolVersion, listProtocolVersions } from "@/db/queries/protocols";
 import { isoDateOf } from "@/lib/calibration";
@@ -19,11 +20,7 @@ export default async function ProtocolPage({ params, searchParams }: PageProps<"
   return (
     <article className="space-y-8">
       <header className="space-y-2">
-        <nav aria-label="Breadcrumb" className="text-sm">
-          <Link href="/workspace/protocols" className="text-verdigris-deep hover:text-copper">
-            ← Test protocols
-          </Link>
-        </nav>
+        <BackLink href="/workspace/protocols">Test protocols</BackLink>
         <h1 className="font-serif text-3xl">{shown.name}</h1>
         <p className="text-sm text-ink-soft">
           Version <span className="figure font-semibold text-ink">{shown.version}</span> of {latest}, written{" "}

@@ -1,3 +1,4 @@
+import { FigureList } from "@/components/figure-list";
 import type { ProtocolTolerance } from "@/db/schema";
 import type { ProtocolVersionView as Version } from "@/db/queries/protocols";
 import { measurementKindInfo } from "@/lib/measurement-kinds";
@@ -54,14 +55,7 @@ export function ProtocolVersionView({ version }: { version: Version }) {
           <h2 id="conditions-heading" className="mb-3 font-serif text-2xl">
             Conditions
           </h2>
-          <dl className="divide-y divide-rule rounded border border-rule bg-paper-raised">
-            {rows.map(([label, value]) => (
-              <div key={label} className="grid grid-cols-2 gap-4 px-4 py-2">
-                <dt className="text-ink-soft">{label}</dt>
-                <dd className="figure">{value}</dd>
-              </div>
-            ))}
-          </dl>
+          <FigureList rows={rows} />
         </section>
 
         <section aria-labelledby="measurements-heading" className="space-y-4">

@@ -45,11 +45,7 @@ export function ProtocolsTable({ protocols }: { protocols: ProtocolRow[] }) {
       emptyMessage="No protocols yet."
       initialSorting={[{ id: "name", desc: false }]}
       minWidth="44rem"
-      actions={
-        <Link href="/workspace/protocols/new" className="rounded bg-ink px-4 py-2 font-semibold text-paper-raised hover:bg-ink-soft">
-          New protocol
-        </Link>
-      }
+      newItem={{ href: "/workspace/protocols/new", label: "New protocol" }}
     />
   );
 }

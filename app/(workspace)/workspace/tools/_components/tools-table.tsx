@@ -44,11 +44,7 @@ export function ToolsTable({ tools }: { tools: ToolRow[] }) {
       emptyMessage="No tools yet."
       initialSorting={[{ id: "name", desc: false }]}
       minWidth="44rem"
-      actions={
-        <Link href="/workspace/tools/new" className="rounded bg-ink px-4 py-2 font-semibold text-paper-raised hover:bg-ink-soft">
-          New tool
-        </Link>
-      }
+      newItem={{ href: "/workspace/tools/new", label: "New tool" }}
     />
   );
 }

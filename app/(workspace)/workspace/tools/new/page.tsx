@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { BackLink } from "@/components/back-link";
 import { listMakers } from "@/db/queries/tools";
 import { requirePagePermission } from "@/lib/session";
 import { ToolForm } from "../_components/tool-form";
@@ -11,11 +11,7 @@ export default async function NewToolPage() {
   const makers = await listMakers();
   return (
     <section className="max-w-3xl space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm">
-        <Link href="/workspace/tools" className="text-verdigris-deep hover:text-copper">
-          ← Tools catalogue
-        </Link>
-      </nav>
+      <BackLink href="/workspace/tools">Tools catalogue</BackLink>
       <h1 className="font-serif text-3xl">New tool</h1>
       <p className="text-sm text-ink-soft">Photos can be added once the tool is saved.</p>
       <ToolForm makers={makers} defaults={{ applianceType: "heating" }} />

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { BackLink } from "@/components/back-link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
 import { getInstrumentForEditing, listLabsForInstruments } from "@/db/queries/instruments";
@@ -18,11 +18,7 @@ export default async function EditInstrumentPage({ params }: PageProps<"/workspa
   if (!instrument) notFound();
   return (
     <section className="max-w-3xl space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm">
-        <Link href="/workspace/instruments" className="text-verdigris-deep hover:text-copper">
-          ← Instruments register
-        </Link>
-      </nav>
+      <BackLink href="/workspace/instruments">Instruments register</BackLink>
       <h1 className="font-serif text-3xl">
         {instrument.maker} {instrument.model} <span className="figure text-xl text-ink-soft">#{instrument.serialNumber}</span>
       </h1>

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { BackLink } from "@/components/back-link";
 import { forbidden, notFound } from "next/navigation";
 import { getProtocolVersion } from "@/db/queries/protocols";
 import { requirePagePermission } from "@/lib/session";
@@ -16,11 +16,7 @@ export default async function ReviseProtocolPage({ params }: PageProps<"/workspa
   if (!latest.revisable) forbidden();
   return (
     <section className="max-w-3xl space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm">
-        <Link href={`/workspace/protocols/${slug}`} className="text-verdigris-deep hover:text-copper">
-          ← {latest.name}
-        </Link>
-      </nav>
+      <BackLink href={`/workspace/protocols/${slug}`}>{latest.name}</BackLink>
       <h1 className="font-serif text-3xl">Revise {latest.name}</h1>
       <p className="text-sm text-ink-soft">
         Starts from version {latest.version}. Saving adds version {latest.version + 1}; version {latest.version} and the runs made

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { BackLink } from "@/components/back-link";
 import { notFound } from "next/navigation";
 import { listToolPhotos } from "@/db/queries/tool-photos";
 import { getToolForEditing, listMakers } from "@/db/queries/tools";
@@ -19,11 +20,7 @@ export default async function EditToolPage({ params, searchParams }: PageProps<"
   return (
     <div className="max-w-4xl space-y-10">
       <header className="space-y-2">
-        <nav aria-label="Breadcrumb" className="text-sm">
-          <Link href="/workspace/tools" className="text-verdigris-deep hover:text-copper">
-            ← Tools catalogue
-          </Link>
-        </nav>
+        <BackLink href="/workspace/tools">Tools catalogue</BackLink>
         <h1 className="font-serif text-3xl">
           {tool.maker} {tool.model}
         </h1>
