@@ -10,9 +10,10 @@ import { GET as getToolPhoto } from "@/app/api/tool-photos/[photoId]/[width]/rou
 import { db } from "@/db";
 import { insertToolPhoto } from "@/db/queries/tool-photos";
 import { instruments, labMembers, labs, makers, protocols, protocolVersions, toolPhotos, tools } from "@/db/schema";
-import { idleActionState, type ActionState } from "@/lib/action-state";
+import { idleActionState } from "@/lib/action-state";
 import { getObjectStorageClient, objectStorageBucket } from "@/lib/object-storage";
 import { defaultSafetyCautions } from "@/lib/validations/protocol";
+import { form, redirectOf, type ServerAction } from "../support/actions";
 import { createAccount } from "../support/factories";
 import { actAs } from "../support/session-mock";
 
@@ -24,28 +25,9 @@ vi.mock("@/db/queries/tool-photos", async (importOriginal) => {
   return { ...actual, insertToolPhoto: vi.fn(actual.insertToolPhoto) };
 });
 
-type Action = (previous: ActionState, formData: FormData) => Promise<ActionState>;
 type Account = Awaited<ReturnType<typeof createAccount>>;
 
-function form(fields: Record<string, string | Blob>): FormData {
-  const data = new FormData();
-  for (const [name, value] of Object.entries(fields)) data.append(name, value);
-  return data;
-}
-
-/** Next implements redirect() as a thrown error whose digest carries the location. */
-async function redirectOf(action: Action, formData: FormData): Promise<string> {
-  try {
-    const state = await action(idleActionState, formData);
-    throw new Error(`expected a redirect, got ${JSON.stringify(state)}`);
-  } catch (error) {
-    const digest = (error as { digest?: string }).digest;
-    if (!digest?.startsWith("NEXT_REDIRECT")) throw error;
-    return digest.split(";")[2]!;
-  }
-}
-
-async function expectRefusedToOutsiders(action: Action, formData: () => FormData) {
+async function expectRefusedToOutsiders(action: ServerAction, formData: () => FormData) {
   actAs(null);
   expect((await action(idleActionState, formData())).status).toBe("unauthenticated");
   actAs(await createAccount({ role: "reader" }));
