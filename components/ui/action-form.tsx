@@ -10,7 +10,7 @@ type FieldErrors = ActionState["fieldErrors"];
 type Values = ActionState["values"];
 
 /**
- * A small form bound to one report action: hidden fields, the visible fields the caller draws (given the field
+ * A small form bound to one server action: hidden fields, the visible fields the caller draws (given the field
  * errors and echoed values), a status line and a button.
  */
 export function ActionForm({

@@ -3,7 +3,7 @@
 import { SelectField, TextField } from "@/components/ui/form-controls";
 import { citeAnalysisSchema, removeCitationSchema } from "@/lib/validations/reports";
 import { citeAnalysis, removeCitation } from "../actions";
-import { ActionForm } from "./action-form";
+import { ActionForm } from "@/components/ui/action-form";
 
 export type CitationRow = { label: string; analysisId: string; status: string; captureKind: string; captureFileName: string; testedOn: string; toolName: string };
 export type CitableRow = { analysisId: string; description: string };

@@ -3,7 +3,7 @@
 import { TextField } from "@/components/ui/form-controls";
 import { deleteReportImageSchema, reportImageLimits, reportImageUploadSchema } from "@/lib/validations/reports";
 import { deleteReportImage, uploadReportImage } from "../actions";
-import { ActionForm } from "./action-form";
+import { ActionForm } from "@/components/ui/action-form";
 
 export type ImageRow = { id: string; name: string; altText: string; width: number; height: number };
 

@@ -2,7 +2,7 @@
 
 import { submitReportSchema } from "@/lib/validations/reports";
 import { submitReport } from "../actions";
-import { ActionForm } from "./action-form";
+import { ActionForm } from "@/components/ui/action-form";
 
 export function SubmitPanel({ reportId }: { reportId: string }) {
   return (
