@@ -1,4 +1,4 @@
-import { requestStatusLabels, type RequestStatusName } from "@/lib/validations/measurement-requests";
+import { requestStatusLabels, type RequestStatusName } from "@/lib/request-statuses";
 
 const statusStyles: Record<RequestStatusName, string> = {
   open: "border-ink-faint text-ink-soft",

@@ -13,7 +13,7 @@ import { recordAudit } from "@/lib/audit";
 import { UserFacingError } from "@/lib/errors";
 import { requestUpdateMail, type RequestChange } from "@/lib/mail-templates";
 import { enqueueMail } from "@/lib/outbox";
-import { requestStatusLabels } from "@/lib/validations/measurement-requests";
+import { requestStatusLabels } from "@/lib/request-statuses";
 
 // The flows behind request triage, shared by the desk's actions and the reviewer's "answered by this report". Each runs
 // inside the caller's transaction: the status, its audit entry (which is also the request's public history) and the

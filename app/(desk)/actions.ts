@@ -6,7 +6,8 @@ import { db } from "@/db";
 import { guardedAction } from "@/lib/guarded-action";
 import { applyRequestStatus, lockOpenRequest, mergeDuplicateRequest, peopleTold } from "@/lib/measurement-requests";
 import { wakeMailSender } from "@/lib/outbox";
-import { requestMergeSchema, requestStatusChangeSchema, requestStatusLabels } from "@/lib/validations/measurement-requests";
+import { requestStatusLabels } from "@/lib/request-statuses";
+import { requestMergeSchema, requestStatusChangeSchema } from "@/lib/validations/measurement-requests";
 
 function revalidateRequestPages(...ids: string[]) {
   revalidatePath("/requests");

@@ -16,13 +16,8 @@ import { UserFacingError } from "@/lib/errors";
 import { guardedAction } from "@/lib/guarded-action";
 import { applyRequestStatus, lockOpenRequest, peopleTold } from "@/lib/measurement-requests";
 import { wakeMailSender } from "@/lib/outbox";
-import {
-  newMeasurementRequestSchema,
-  requestFulfilmentSchema,
-  requestLimits,
-  requestStatusLabels,
-  requestVoteSchema,
-} from "@/lib/validations/measurement-requests";
+import { requestStatusLabels } from "@/lib/request-statuses";
+import { newMeasurementRequestSchema, requestFulfilmentSchema, requestLimits, requestVoteSchema } from "@/lib/validations/measurement-requests";
 
 export const createMeasurementRequest = guardedAction(
   "(public)/actions.ts#createMeasurementRequest",

@@ -1,6 +1,7 @@
 import { randomBytes } from "node:crypto";
 import { relations } from "drizzle-orm";
 import { boolean, index, integer, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid, type AnyPgColumn } from "drizzle-orm/pg-core";
+import { requestStatuses } from "../../lib/request-statuses";
 import { tools } from "./catalogue";
 import { rowIdentity } from "./columns";
 import { users } from "./people";
@@ -26,7 +27,7 @@ export const comments = pgTable(
   (table) => [index("comments_report_idx").on(table.reportId, table.status), index("comments_author_idx").on(table.authorId, table.createdAt)],
 );
 
-export const requestStatusEnum = pgEnum("request_status", ["open", "planned", "measured", "declined"]);
+export const requestStatusEnum = pgEnum("request_status", requestStatuses);
 
 export const measurementRequests = pgTable(
   "measurement_requests",

@@ -1,15 +1,7 @@
 import { z } from "zod";
+import { requestStatuses } from "@/lib/request-statuses";
 import { optionalText, requiredText } from "@/lib/validations/form-fields";
 
-export const requestStatuses = ["open", "planned", "measured", "declined"] as const;
-export type RequestStatusName = (typeof requestStatuses)[number];
-
-export const requestStatusLabels: Record<RequestStatusName, string> = {
-  open: "Open",
-  planned: "Planned",
-  measured: "Measured",
-  declined: "Declined",
-};
 
 /** Requests a reader may post in any 24 hours: enough to ask for what they need, too few to flood the list. */
 export const requestLimits = { perDay: 5, listPageSize: 20 } as const;

@@ -6,7 +6,8 @@ import { countMeasurementRequestsByStatus, listMeasurementRequests } from "@/db/
 import { can } from "@/lib/authz";
 import { formatDate } from "@/lib/format";
 import { getCurrentUser } from "@/lib/session";
-import { requestLimits, parseRequestListQuery, requestStatuses, requestStatusLabels } from "@/lib/validations/measurement-requests";
+import { requestStatuses, requestStatusLabels } from "@/lib/request-statuses";
+import { requestLimits, parseRequestListQuery } from "@/lib/validations/measurement-requests";
 import { VoteTally } from "./_components/vote-tally";
 
 export const metadata: Metadata = { title: "Measurement requests" };

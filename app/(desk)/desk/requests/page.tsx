@@ -6,7 +6,8 @@ import { SelectFilter } from "@/components/select-filter";
 import { countMeasurementRequestsByStatus, listMeasurementRequests } from "@/db/queries/measurement-requests";
 import { formatDate } from "@/lib/format";
 import { requirePagePermission } from "@/lib/session";
-import { parseRequestListQuery, requestStatuses, requestStatusLabels } from "@/lib/validations/measurement-requests";
+import { requestStatuses, requestStatusLabels } from "@/lib/request-statuses";
+import { parseRequestListQuery } from "@/lib/validations/measurement-requests";
 
 export const metadata: Metadata = { title: "Request triage" };
 

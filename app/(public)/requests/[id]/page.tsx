@@ -12,7 +12,7 @@ import {
 import { can } from "@/lib/authz";
 import { formatDate } from "@/lib/format";
 import { getCurrentUser } from "@/lib/session";
-import { requestStatusLabels, type RequestStatusName } from "@/lib/validations/measurement-requests";
+import { requestStatusLabels, type RequestStatusName } from "@/lib/request-statuses";
 import { VoteTally } from "../_components/vote-tally";
 
 export async function generateMetadata({ params }: PageProps<"/requests/[id]">): Promise<Metadata> {

@@ -13,7 +13,7 @@ import {
 import { formatDate } from "@/lib/format";
 import { peopleTold } from "@/lib/measurement-requests";
 import { requirePagePermission } from "@/lib/session";
-import { requestStatusLabels } from "@/lib/validations/measurement-requests";
+import { requestStatusLabels } from "@/lib/request-statuses";
 import { MergeForm } from "./_components/merge-form";
 import { StatusForm } from "./_components/status-form";
 

@@ -4,7 +4,8 @@ import { useState } from "react";
 import { changeRequestStatus } from "@/app/(desk)/actions";
 import { FormStatus, SelectField, SubmitButton, TextAreaField } from "@/components/ui/form-controls";
 import { useCheckedAction } from "@/components/ui/use-checked-action";
-import { requestStatusChangeSchema, requestStatusLabels } from "@/lib/validations/measurement-requests";
+import { requestStatusLabels } from "@/lib/request-statuses";
+import { requestStatusChangeSchema } from "@/lib/validations/measurement-requests";
 
 const choices = ["planned", "declined", "open"] as const;
 
