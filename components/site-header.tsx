@@ -14,6 +14,9 @@ export async function SiteHeader() {
           <Wordmark />
         </Link>
         <nav aria-label="Main" className="flex flex-wrap items-center gap-x-5 gap-y-1 text-sm font-semibold">
+          <Link href="/reports" className="hover:text-copper">
+            Reports
+          </Link>
           <Link href="/tools" className="hover:text-copper">
             Tools
           </Link>

@@ -13,6 +13,15 @@ export const auditActionLabels = {
   "account.deleted": "Account deleted",
   "request.status_changed": "Request status changed",
   "request.merged": "Request merged into another",
+  // editorial desk, publishing, comments
+  "report.published": "Report published",
+  "report.scheduled": "Report scheduled for publication",
+  "report.sent_back": "Sent back to the reviewer",
+  "report.retracted": "Report retracted",
+  "report.revision_proposed": "Revision proposed",
+  "report.maker_reply_attached": "Maker's reply attached",
+  "comment.moderated": "Comment moderated",
+  "user.commenter_trust_changed": "Commenter trust changed",
 } as const satisfies Record<string, string>;
 
 export type AuditAction = keyof typeof auditActionLabels;

@@ -21,6 +21,9 @@ export const permissions = {
   /** Link the report that answers a request, which marks it measured. */
   "requests:fulfil": ["reviewer", "editor"],
   "audit:read": ["editor", "admin"],
+  // editorial desk, publishing, comments
+  /** Comment on published reports (the report's author may also reply). */
+  "comments:post": ["reader", "reviewer", "editor", "admin"],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof permissions;
@@ -57,6 +60,14 @@ export const pageAccess = {
   "/desk/requests": "requests:triage",
   "/desk/requests/[id]": "requests:triage",
   "/desk/audit": "audit:read",
+  // editorial desk, publishing, comments
+  "/reports": "public",
+  "/reports/[slug]": "public",
+  "/reports/[slug]/revisions/[number]": "public",
+  "/reports/[slug]/diff": "public",
+  "/desk/reports/[id]": "desk:use",
+  "/desk/comments": "desk:use",
+  "/workspace/reports/[id]/revise": "workspace:use",
   // workspace: tools catalogue, instruments, protocols
   "/workspace/tools": "catalogue:edit",
   "/workspace/tools/new": "catalogue:edit",
@@ -115,6 +126,16 @@ export const actionAccess = {
   "(public)/actions.ts#markRequestMeasured": "requests:fulfil",
   "(desk)/actions.ts#changeRequestStatus": "requests:triage",
   "(desk)/actions.ts#mergeMeasurementRequests": "requests:triage",
+  // editorial desk, publishing, comments
+  "(desk)/desk/reports/actions.ts#publishReport": "desk:use",
+  "(desk)/desk/reports/actions.ts#scheduleReport": "desk:use",
+  "(desk)/desk/reports/actions.ts#sendBackReport": "desk:use",
+  "(desk)/desk/reports/actions.ts#retractReport": "desk:use",
+  "(desk)/desk/reports/actions.ts#attachMakerReply": "desk:use",
+  "(desk)/desk/comments/actions.ts#moderateComment": "desk:use",
+  "(desk)/desk/comments/actions.ts#setCommenterTrust": "desk:use",
+  "(public)/reports/actions.ts#postComment": "comments:post",
+  "(workspace)/workspace/reports/[id]/revise/actions.ts#proposeRevision": "workspace:use",
   // workspace: tools catalogue, instruments, protocols
   "(workspace)/workspace/tools/actions.ts#createTool": "catalogue:edit",
   "(workspace)/workspace/tools/actions.ts#updateTool": "catalogue:edit",

@@ -7,6 +7,7 @@ export const queues = {
   analyseCapture: "analyse-capture",
   cleanUpUploads: "clean-up-uploads",
   deliverMail: "deliver-mail",
+  publishScheduled: "publish-scheduled",
 } as const;
 
 // "short" keeps one waiting job per singleton key, so an analysis queued twice is worked once.
@@ -15,6 +16,8 @@ const queuePolicies: Record<(typeof queues)[keyof typeof queues], PgBoss.QueuePo
   "clean-up-uploads": "singleton",
   // One run waiting and one running: wake-ups during a run queue exactly one more, a burst of them collapses into it.
   "deliver-mail": "stately",
+  // A minutely sweep: one run at a time is enough, a missed minute is caught by the next.
+  "publish-scheduled": "singleton",
 };
 
 export type AnalyseCaptureJob = { analysisId: string };

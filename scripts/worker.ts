@@ -4,6 +4,7 @@ import { setPriority } from "node:os";
 import { closeDatabase } from "@/db";
 import { runCaptureAnalysis } from "@/lib/capture-analysis";
 import { ABANDONED_AFTER_MS, cleanUpAbandonedUploads } from "@/lib/capture-uploads";
+import { publishDueRevisions } from "@/lib/editorial";
 import { queues, startJobQueue, type AnalyseCaptureJob } from "@/lib/jobs";
 import { deliverPendingMail } from "@/lib/outbox";
 
@@ -32,6 +33,14 @@ await boss.work(queues.deliverMail, { batchSize: 1, pollingIntervalSeconds: 1 },
   if (tally.sent || tally.retrying || tally.failed) {
     console.log(`worker: mail sent ${tally.sent}, to retry ${tally.retrying}, failed ${tally.failed}`);
   }
+});
+
+// Reports the desk approved for a later time go live within a minute of it. Reader pages look up the current revision on
+// every request, so nothing cached needs clearing from here.
+await boss.schedule(queues.publishScheduled, "* * * * *");
+await boss.work(queues.publishScheduled, { batchSize: 1 }, async () => {
+  const published = await publishDueRevisions();
+  if (published.length) console.log(`worker: published scheduled revisions of ${published.join(", ")}`);
 });
 
 console.log(`worker ready: ${Object.values(queues).join(", ")}`);

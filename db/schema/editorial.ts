@@ -1,5 +1,7 @@
 import { relations } from "drizzle-orm";
 import { index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import type { ReportEmbedSources } from "@/lib/report-embeds";
+import type { InstrumentSnapshot, RunConditions, TestedUnit } from "./bench";
 import { rowIdentity } from "./columns";
 import { users } from "./people";
 import { reports } from "./reports";
@@ -7,14 +9,28 @@ import { reports } from "./reports";
 export const revisionKindEnum = pgEnum("revision_kind", ["original", "correction", "amendment"]);
 export const revisionStatusEnum = pgEnum("revision_status", ["pending", "scheduled", "published", "rejected"]);
 
-/** What a published page shows, frozen: the report's text and the exact figures of every analysis it cites. */
-export type FrozenReportContent = {
+/** A cited run as the report describes it: protocol version, supply and conditions, the unit and the instruments used. */
+export type FrozenRun = {
+  id: string;
+  testedOn: string;
+  labName: string;
+  toolName: string;
+  protocol: { name: string; version: number; summary: string; safetyCautions: string };
+  conditions: RunConditions;
+  unit: TestedUnit;
+  instruments: InstrumentSnapshot[];
+};
+
+/**
+ * What a published page shows, frozen at approval: the report's text around the body, and everything its figures are
+ * drawn from (the exact results and display series of every cited analysis, the measurements and verdicts, the
+ * tools' ratings, the images), so a later re-analysis or catalogue edit cannot change a published number.
+ */
+export type FrozenReportContent = ReportEmbedSources & {
   title: string;
   disclosure: string;
-  tools: { toolId: string; slug: string; maker: string; model: string; position: number }[];
-  analyses: { label: string; analysisId: string; result: Record<string, unknown>; displaySeries: Record<string, unknown> | null }[];
-  measurements: Record<string, unknown>[];
-  images: { id: string; objectKey: string; altText: string; width: number; height: number }[];
+  author: { id: string; name: string };
+  runs: FrozenRun[];
 };
 
 export const reportRevisions = pgTable(
@@ -104,3 +120,6 @@ export type NewReportRevision = typeof reportRevisions.$inferInsert;
 export type EditorialDecision = typeof editorialDecisions.$inferSelect;
 export type MakerReply = typeof makerReplies.$inferSelect;
 export type AuditEntry = typeof auditLog.$inferSelect;
+export type RevisionKind = (typeof revisionKindEnum.enumValues)[number];
+export type RevisionStatus = (typeof revisionStatusEnum.enumValues)[number];
+export type DecisionKind = (typeof decisionKindEnum.enumValues)[number];

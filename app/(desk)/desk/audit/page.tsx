@@ -13,6 +13,7 @@ const perPage = 50;
 
 const subjectPages: Partial<Record<string, (id: string) => string>> = {
   measurement_request: (id) => `/desk/requests/${id}`,
+  report: (id) => `/desk/reports/${id}`,
 };
 
 function labelOf<T extends Record<string, string>>(labels: T, key: string): string {
