@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, like, notInArray, or, sql, type SQL } from "drizzle-orm";
-import type { SelectedFields } from "drizzle-orm/pg-core";
+import type { PgSelect } from "drizzle-orm/pg-core";
 import { db, type Transaction } from "@/db";
 import {
   analyses,
@@ -33,12 +33,10 @@ const toolName = sql<string>`${makers.name} || ' ' || ${tools.model}`;
 
 /**
  * A report's citations with the analysis, capture, run, lab and tool each one points at, in label order: the one
- * join every view of a report's cited data starts from.
+ * join every view of a report's cited data starts from. Pass `select(columns).from(reportAnalyses).$dynamic()`.
  */
-function selectCitations<Columns extends SelectedFields>(executor: typeof db | Transaction, reportId: string, columns: Columns) {
-  return executor
-    .select(columns)
-    .from(reportAnalyses)
+function joinCitations<Query extends PgSelect>(query: Query, reportId: string) {
+  return query
     .innerJoin(analyses, eq(analyses.id, reportAnalyses.analysisId))
     .innerJoin(captures, eq(captures.id, analyses.captureId))
     .innerJoin(testRuns, eq(testRuns.id, captures.runId))
@@ -103,18 +101,24 @@ export async function getReport({ id, viewer }: { id: string; viewer: Viewer }) 
       .innerJoin(makers, eq(makers.id, tools.makerId))
       .where(eq(reportTools.reportId, id))
       .orderBy(asc(reportTools.position)),
-    selectCitations(db, id, {
-      label: reportAnalyses.label,
-      analysisId: analyses.id,
-      status: analyses.status,
-      finishedAt: analyses.finishedAt,
-      captureKind: captures.kind,
-      captureFileName: captures.fileName,
-      runId: testRuns.id,
-      testedOn: testRuns.testedOn,
-      unit: testRuns.unit,
-      toolName,
-    }),
+    joinCitations(
+      db
+        .select({
+          label: reportAnalyses.label,
+          analysisId: analyses.id,
+          status: analyses.status,
+          finishedAt: analyses.finishedAt,
+          captureKind: captures.kind,
+          captureFileName: captures.fileName,
+          runId: testRuns.id,
+          testedOn: testRuns.testedOn,
+          unit: testRuns.unit,
+          toolName,
+        })
+        .from(reportAnalyses)
+        .$dynamic(),
+      id,
+    ),
     db
       .select({ id: reportImages.id, name: reportImages.name, altText: reportImages.altText, width: reportImages.width, height: reportImages.height })
       .from(reportImages)
@@ -318,22 +322,28 @@ export async function listImagesWithoutAltText(tx: Transaction, { reportId }: { 
  */
 export async function loadReportEmbedSources(tx: Transaction, { reportId }: { reportId: string }): Promise<ReportEmbedSources> {
   const [cited, toolRows, imageRows] = await Promise.all([
-    selectCitations(tx, reportId, {
-      label: reportAnalyses.label,
-      analysisId: analyses.id,
-      status: analyses.status,
-      analysisVersion: analyses.analysisVersion,
-      result: analyses.result,
-      displaySeries: analyses.displaySeries,
-      captureKind: captures.kind,
-      captureFileName: captures.fileName,
-      runId: testRuns.id,
-      testedOn: testRuns.testedOn,
-      labName: labs.name,
-      toolId: tools.id,
-      toolSlug: tools.slug,
-      toolName,
-    }),
+    joinCitations(
+      tx
+        .select({
+          label: reportAnalyses.label,
+          analysisId: analyses.id,
+          status: analyses.status,
+          analysisVersion: analyses.analysisVersion,
+          result: analyses.result,
+          displaySeries: analyses.displaySeries,
+          captureKind: captures.kind,
+          captureFileName: captures.fileName,
+          runId: testRuns.id,
+          testedOn: testRuns.testedOn,
+          labName: labs.name,
+          toolId: tools.id,
+          toolSlug: tools.slug,
+          toolName,
+        })
+        .from(reportAnalyses)
+        .$dynamic(),
+      reportId,
+    ),
     tx
       .select({
         id: tools.id,
