@@ -25,10 +25,12 @@ import {
   upsertCitation,
 } from "@/db/queries/reports";
 import type { Viewer } from "@/db/queries/runs";
+import { queueSubmissionMail } from "@/lib/editorial";
 import { UserFacingError } from "@/lib/errors";
 import { guardedAction } from "@/lib/guarded-action";
 import { reencodeWebRenditions } from "@/lib/images";
 import { deleteObject, putObject } from "@/lib/object-storage";
+import { wakeMailSender } from "@/lib/outbox";
 import { submissionProblems } from "@/lib/report-submission";
 import { firstFreeSlug, slugify } from "@/lib/slug";
 import {
@@ -171,12 +173,17 @@ export const submitReport = guardedAction("(workspace)/workspace/reports/actions
       listImagesWithoutAltText(tx, { reportId: report.id }),
     ]);
     const found = submissionProblems({ bodyMdx: report.bodyMdx, known, imagesWithoutAltText: missingAlt.map((image) => image.name) });
-    if (found.length === 0) await markReportSubmitted(tx, { id: report.id });
+    if (found.length === 0) {
+      await markReportSubmitted(tx, { id: report.id });
+      await queueSubmissionMail(tx, { reportId: report.id });
+    }
     return found;
   });
   if (problems.length) {
     return { status: "error", message: "Not submitted yet: fix these first (save your changes before submitting).", fieldErrors: { submission: problems } };
   }
+  await wakeMailSender();
+  revalidatePath("/desk");
   revalidatePath(`/workspace/reports/${data.reportId}`);
   revalidatePath("/workspace/reports");
   return { status: "ok", message: "Submitted for review. The report is read-only while the editors have it." };
