@@ -13,7 +13,7 @@ import {
   type InstrumentSnapshot,
 } from "@/db/schema";
 import type { StoredAnalysisOptions } from "@/lib/analysis-options";
-import { runScope, type Viewer } from "./runs";
+import { runScope, toolName, toolRatingColumns, type Viewer } from "./runs";
 
 const captureColumns = {
   id: captures.id,
@@ -220,14 +220,7 @@ export async function getRunForAnalysis({ runId }: { runId: string }) {
     .select({
       conditions: testRuns.conditions,
       tolerances: protocolVersions.tolerances,
-      tool: {
-        name: sql<string>`${makers.name} || ' ' || ${tools.model}`,
-        ratedPowerW: tools.ratedPowerW,
-        ratedVoltageMin: tools.ratedVoltageMin,
-        ratedVoltageMax: tools.ratedVoltageMax,
-        applianceType: tools.applianceType,
-        claimedHeatUpSeconds: tools.claimedHeatUpSeconds,
-      },
+      tool: { name: toolName, ...toolRatingColumns },
     })
     .from(testRuns)
     .innerJoin(tools, eq(tools.id, testRuns.toolId))

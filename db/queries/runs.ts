@@ -1,5 +1,6 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, notInArray, sql, type SQL } from "drizzle-orm";
+import type { PgSelect } from "drizzle-orm/pg-core";
 import { db, type Transaction } from "@/db";
 import {
   instruments,
@@ -29,10 +30,32 @@ export function runScope(viewer: Viewer): SQL | undefined {
   return can(viewer.role, "workspace:edit-any") ? undefined : eq(testRuns.reviewerId, viewer.id);
 }
 
-const toolName = sql<string>`${makers.name} || ' ' || ${tools.model}`;
+export const toolName = sql<string>`${makers.name} || ' ' || ${tools.model}`;
+
+/** What verdicts need of a tool: its ratings as the maker states them. */
+export const toolRatingColumns = {
+  ratedPowerW: tools.ratedPowerW,
+  ratedVoltageMin: tools.ratedVoltageMin,
+  ratedVoltageMax: tools.ratedVoltageMax,
+  applianceType: tools.applianceType,
+  motorShareAboveHalf: tools.motorShareAboveHalf,
+  ratedAirflowLpm: tools.ratedAirflowLpm,
+  claimedHeatUpSeconds: tools.claimedHeatUpSeconds,
+};
+
+/** Joins a run's tool, maker, lab, protocol version and reviewer, for the run list and the run page. */
+function withRunContext<T extends PgSelect>(query: T) {
+  return query
+    .innerJoin(tools, eq(tools.id, testRuns.toolId))
+    .innerJoin(makers, eq(makers.id, tools.makerId))
+    .innerJoin(labs, eq(labs.id, testRuns.labId))
+    .innerJoin(protocolVersions, eq(protocolVersions.id, testRuns.protocolVersionId))
+    .innerJoin(protocols, eq(protocols.id, protocolVersions.protocolId))
+    .innerJoin(users, eq(users.id, testRuns.reviewerId));
+}
 
 export async function listRuns({ viewer }: { viewer: Viewer }) {
-  return db
+  const query = db
     .select({
       id: testRuns.id,
       testedOn: testRuns.testedOn,
@@ -45,21 +68,15 @@ export async function listRuns({ viewer }: { viewer: Viewer }) {
       serialNumber: sql<string>`${testRuns.unit}->>'serialNumber'`,
     })
     .from(testRuns)
-    .innerJoin(tools, eq(tools.id, testRuns.toolId))
-    .innerJoin(makers, eq(makers.id, tools.makerId))
-    .innerJoin(labs, eq(labs.id, testRuns.labId))
-    .innerJoin(protocolVersions, eq(protocolVersions.id, testRuns.protocolVersionId))
-    .innerJoin(protocols, eq(protocols.id, protocolVersions.protocolId))
-    .innerJoin(users, eq(users.id, testRuns.reviewerId))
-    .where(runScope(viewer))
-    .orderBy(desc(testRuns.testedOn), desc(testRuns.createdAt));
+    .$dynamic();
+  return withRunContext(query).where(runScope(viewer)).orderBy(desc(testRuns.testedOn), desc(testRuns.createdAt));
 }
 
 export type RunSummary = Awaited<ReturnType<typeof listRuns>>[number];
 
 /** A run with what its pages and its analyses need: the tool's ratings and the protocol version it follows. */
 export async function getRun({ id, viewer }: { id: string; viewer: Viewer }) {
-  const [row] = await db
+  const query = db
     .select({
       id: testRuns.id,
       reviewerId: testRuns.reviewerId,
@@ -74,13 +91,7 @@ export async function getRun({ id, viewer }: { id: string; viewer: Viewer }) {
         slug: tools.slug,
         name: toolName,
         category: tools.category,
-        ratedPowerW: tools.ratedPowerW,
-        ratedVoltageMin: tools.ratedVoltageMin,
-        ratedVoltageMax: tools.ratedVoltageMax,
-        applianceType: tools.applianceType,
-        motorShareAboveHalf: tools.motorShareAboveHalf,
-        ratedAirflowLpm: tools.ratedAirflowLpm,
-        claimedHeatUpSeconds: tools.claimedHeatUpSeconds,
+        ...toolRatingColumns,
       },
       protocol: {
         versionId: protocolVersions.id,
@@ -94,14 +105,8 @@ export async function getRun({ id, viewer }: { id: string; viewer: Viewer }) {
       },
     })
     .from(testRuns)
-    .innerJoin(tools, eq(tools.id, testRuns.toolId))
-    .innerJoin(makers, eq(makers.id, tools.makerId))
-    .innerJoin(labs, eq(labs.id, testRuns.labId))
-    .innerJoin(protocolVersions, eq(protocolVersions.id, testRuns.protocolVersionId))
-    .innerJoin(protocols, eq(protocols.id, protocolVersions.protocolId))
-    .innerJoin(users, eq(users.id, testRuns.reviewerId))
-    .where(and(eq(testRuns.id, id), runScope(viewer)))
-    .limit(1);
+    .$dynamic();
+  const [row] = await withRunContext(query).where(and(eq(testRuns.id, id), runScope(viewer))).limit(1);
   return row ?? null;
 }
 

@@ -1,6 +1,6 @@
 import { desc, eq, inArray } from "drizzle-orm";
 import type { Transaction } from "@/db";
-import { insertMeasurements, replaceRunInstruments, snapshotInstruments } from "@/db/queries/runs";
+import { insertMeasurements, replaceRunInstruments, snapshotInstruments, toolRatingColumns } from "@/db/queries/runs";
 import { analyses, captures, instruments, labs, manualReadings, protocols, protocolVersions, testRuns, tools, users } from "@/db/schema";
 import {
   accuracyChoices,
@@ -31,16 +31,7 @@ async function seedRun(tx: Transaction, demo: DemoRun, now: Date, storageReachab
   const reviewer = await single(tx.select({ id: users.id }).from(users).where(eq(users.email, demo.reviewerEmail)), `${demo.reviewerEmail} missing`);
   const tool = await single(
     tx
-      .select({
-        id: tools.id,
-        ratedPowerW: tools.ratedPowerW,
-        ratedVoltageMin: tools.ratedVoltageMin,
-        ratedVoltageMax: tools.ratedVoltageMax,
-        applianceType: tools.applianceType,
-        motorShareAboveHalf: tools.motorShareAboveHalf,
-        ratedAirflowLpm: tools.ratedAirflowLpm,
-        claimedHeatUpSeconds: tools.claimedHeatUpSeconds,
-      })
+      .select({ id: tools.id, ...toolRatingColumns })
       .from(tools)
       .where(eq(tools.slug, demo.toolSlug)),
     `tool ${demo.toolSlug} missing`,

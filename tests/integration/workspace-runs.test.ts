@@ -33,7 +33,7 @@ import {
   tools,
   type AccuracyRange,
 } from "@/db/schema";
-import { idleActionState, type ActionState } from "@/lib/action-state";
+import { idleActionState } from "@/lib/action-state";
 import type { StoredAnalysisOptions } from "@/lib/analysis-options";
 import { analyzeCapture } from "@/lib/bench/analysis";
 import { runCaptureAnalysis } from "@/lib/capture-analysis";
@@ -41,6 +41,7 @@ import { captureObjectKey, cleanUpAbandonedUploads } from "@/lib/capture-uploads
 import { enqueueAnalysis } from "@/lib/jobs";
 import { getObjectStorageClient, objectStorageBucket, putObject, statObject } from "@/lib/object-storage";
 import { captureText, heatUpLogBlocks } from "@/lib/synthetic-captures";
+import { form, redirectOf, type ServerAction } from "../support/actions";
 import { createAccount } from "../support/factories";
 import { actAs } from "../support/session-mock";
 
@@ -49,28 +50,9 @@ vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }
 // The worker is not running here: jobs are recorded, and the tests run the job function themselves.
 vi.mock("@/lib/jobs", () => ({ enqueueAnalysis: vi.fn(async () => undefined) }));
 
-type Action = (previous: ActionState, formData: FormData) => Promise<ActionState>;
 type Account = Awaited<ReturnType<typeof createAccount>>;
 
 const fixture = path.join(import.meta.dirname, "../fixtures/captures/orrery-orm42-hot-air.csv");
-
-function form(fields: Record<string, string>): FormData {
-  const data = new FormData();
-  for (const [name, value] of Object.entries(fields)) data.append(name, value);
-  return data;
-}
-
-/** Next implements redirect() as a thrown error whose digest carries the location. */
-async function redirectOf(action: Action, formData: FormData): Promise<string> {
-  try {
-    const state = await action(idleActionState, formData);
-    throw new Error(`expected a redirect, got ${JSON.stringify(state)}`);
-  } catch (error) {
-    const digest = (error as { digest?: string }).digest;
-    if (!digest?.startsWith("NEXT_REDIRECT")) throw error;
-    return digest.split(";")[2]!;
-  }
-}
 
 function jsonRequest(url: string, body: unknown): Request {
   return new Request(`http://localhost${url}`, { method: "POST", headers: { "Content-Type": "application/json" }, body: JSON.stringify(body) });
@@ -224,7 +206,7 @@ const orreryMapping = (captureId: string, overrides: Record<string, string> = {}
   ...overrides,
 });
 
-async function requestAnalysis(account: Account, action: Action, fields: Record<string, string>): Promise<string> {
+async function requestAnalysis(account: Account, action: ServerAction, fields: Record<string, string>): Promise<string> {
   actAs(account);
   const location = await redirectOf(action, form(fields));
   const id = /\?analysis=([0-9a-f-]{36})$/.exec(location)?.[1];

@@ -29,6 +29,19 @@ const statusLabels = {
   failed: "Analysis failed",
 } as const;
 
+function FactList({ rows, figures = false }: { rows: [string, string][]; figures?: boolean }) {
+  return (
+    <dl className="divide-y divide-rule rounded border border-rule bg-paper-raised text-sm">
+      {rows.map(([label, value]) => (
+        <div key={label} className="grid grid-cols-2 gap-4 px-4 py-2">
+          <dt className="text-ink-soft">{label}</dt>
+          <dd className={figures ? "figure" : undefined}>{value}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}
+
 function formatBytes(bytes: number): string {
   return bytes < 1024 * 1024 ? `${formatNumber(bytes / 1024, 3)} KB` : `${formatNumber(bytes / 1024 / 1024, 3)} MB`;
 }
@@ -130,27 +143,13 @@ export default async function RunPage({ params }: PageProps<"/workspace/runs/[id
           <h2 id="unit-heading" className="mb-3 font-serif text-2xl">
             Unit tested
           </h2>
-          <dl className="divide-y divide-rule rounded border border-rule bg-paper-raised text-sm">
-            {unitRows.map(([label, value]) => (
-              <div key={label} className="grid grid-cols-2 gap-4 px-4 py-2">
-                <dt className="text-ink-soft">{label}</dt>
-                <dd>{value}</dd>
-              </div>
-            ))}
-          </dl>
+          <FactList rows={unitRows} />
         </section>
         <section aria-labelledby="conditions-heading">
           <h2 id="conditions-heading" className="mb-3 font-serif text-2xl">
             Supply and conditions
           </h2>
-          <dl className="divide-y divide-rule rounded border border-rule bg-paper-raised text-sm">
-            {conditionRows.map(([label, value]) => (
-              <div key={label} className="grid grid-cols-2 gap-4 px-4 py-2">
-                <dt className="text-ink-soft">{label}</dt>
-                <dd className="figure">{value}</dd>
-              </div>
-            ))}
-          </dl>
+          <FactList rows={conditionRows} figures />
         </section>
       </div>
 

@@ -5,7 +5,8 @@ import { FormStatus, SelectField, SubmitButton, TextField } from "@/components/u
 import { useCheckedAction } from "@/components/ui/use-checked-action";
 import type { MeasurementKind } from "@/db/schema";
 import { measurementKindInfo, measurementKinds } from "@/lib/measurement-kinds";
-import { decisionRuleLabels, decisionRules, manualReadingSchema } from "@/lib/validations/runs";
+import { manualReadingSchema } from "@/lib/validations/runs";
+import { DecisionRuleSelect } from "../../_components/decision-rule-select";
 import { addManualReading } from "../../actions";
 
 export function ManualReadingForm({
@@ -52,13 +53,7 @@ export function ManualReadingForm({
           </option>
         ))}
       </SelectField>
-      <SelectField label="Decision rule" name="rule" errors={errors} defaultValue={values?.rule ?? "simple"}>
-        {decisionRules.map((rule) => (
-          <option key={rule} value={rule}>
-            {decisionRuleLabels[rule]}
-          </option>
-        ))}
-      </SelectField>
+      <DecisionRuleSelect errors={errors} defaultValue={values?.rule} />
       <div className="sm:col-span-2">
         <TextField label="Note" name="note" errors={errors} values={values} hint="How and where it was read, if it matters." />
       </div>

@@ -1,10 +1,11 @@
 "use client";
 
-import { FormStatus, SelectField, SubmitButton, TextField } from "@/components/ui/form-controls";
+import { FormStatus, SubmitButton, TextField } from "@/components/ui/form-controls";
 import { useCheckedAction } from "@/components/ui/use-checked-action";
 import type { AccuracyChoice } from "@/lib/analysis-options";
-import { decisionRuleLabels, decisionRules, heatUpMappingSchema } from "@/lib/validations/runs";
+import { heatUpMappingSchema } from "@/lib/validations/runs";
 import { startHeatUpAnalysis } from "../../../../actions";
+import { DecisionRuleSelect } from "../../../../_components/decision-rule-select";
 import { AccuracySelect, ColumnSelect } from "./mapping-fields";
 
 export function HeatUpMappingForm({
@@ -36,13 +37,7 @@ export function HeatUpMappingForm({
         <TextField label="Setpoint (°C)" name="setpointC" errors={errors} values={values} inputMode="decimal" />
         <TextField label="Band around the setpoint (± °C)" name="bandC" errors={errors} values={values} inputMode="decimal" hint="Heat-up time is when the temperature enters this band for good." />
         <AccuracySelect label="Thermometer accuracy" name="temperatureAccuracy" choices={temperatureChoices} defaultValue={values.temperatureAccuracy} errors={errors} />
-        <SelectField label="Decision rule" name="rule" errors={errors} defaultValue={values.rule ?? "simple"}>
-          {decisionRules.map((rule) => (
-            <option key={rule} value={rule}>
-              {decisionRuleLabels[rule]}
-            </option>
-          ))}
-        </SelectField>
+        <DecisionRuleSelect errors={errors} defaultValue={values.rule} />
       </fieldset>
       <div className="flex flex-wrap items-center gap-4">
         <SubmitButton pending={pending}>Start analysis</SubmitButton>

@@ -3,8 +3,9 @@
 import { FormStatus, SelectField, SubmitButton, TextField } from "@/components/ui/form-controls";
 import { useCheckedAction } from "@/components/ui/use-checked-action";
 import type { AccuracyChoice } from "@/lib/analysis-options";
-import { decisionRuleLabels, decisionRules, waveformMappingSchema } from "@/lib/validations/runs";
+import { waveformMappingSchema } from "@/lib/validations/runs";
 import { startWaveformAnalysis } from "../../../../actions";
+import { DecisionRuleSelect } from "../../../../_components/decision-rule-select";
 import { AccuracySelect, ColumnSelect } from "./mapping-fields";
 
 export function WaveformMappingForm({
@@ -77,13 +78,7 @@ export function WaveformMappingForm({
         <legend className="mb-2 font-serif text-xl">Uncertainty and verdict</legend>
         <AccuracySelect label="Current accuracy" name="currentAccuracy" choices={currentChoices} defaultValue={values.currentAccuracy} errors={errors} />
         <AccuracySelect label="Voltage accuracy" name="voltageAccuracy" choices={voltageChoices} defaultValue={values.voltageAccuracy} errors={errors} />
-        <SelectField label="Decision rule" name="rule" errors={errors} defaultValue={values.rule ?? "simple"}>
-          {decisionRules.map((rule) => (
-            <option key={rule} value={rule}>
-              {decisionRuleLabels[rule]}
-            </option>
-          ))}
-        </SelectField>
+        <DecisionRuleSelect errors={errors} defaultValue={values.rule} />
       </fieldset>
 
       <div className="flex flex-wrap items-center gap-4">
