@@ -1,6 +1,7 @@
 import { closeDatabase, db } from "@/db";
 import { seedCommunity } from "./seeds/community";
 import { seedBenchRuns } from "./seeds/bench-runs";
+import { seedEditorial } from "./seeds/editorial";
 import { seedPeopleAndCatalogue } from "./seeds/people-and-catalogue";
 import { seedWorkspaceCatalogue } from "./seeds/workspace-catalogue";
 import { seedReports } from "./seeds/reports";
@@ -10,9 +11,11 @@ const seeders = [
   { name: "people and catalogue", run: seedPeopleAndCatalogue },
   { name: "instruments, protocols and tool photos", run: seedWorkspaceCatalogue },
   { name: "test runs, captures and analyses", run: seedBenchRuns },
-  { name: "measurement requests and e-mail settings", run: seedCommunity },
-  // Last: reports cite what the other seeders made.
+  // Reports cite what the seeders above made.
   { name: "draft reports", run: seedReports },
+  { name: "published reports, corrections and comments", run: seedEditorial },
+  // After the reports: a measured request links the published report that answers it.
+  { name: "measurement requests and e-mail settings", run: seedCommunity },
 ];
 
 try {
