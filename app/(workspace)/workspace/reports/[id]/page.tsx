@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { DeskStatus } from "@/components/desk-status";
 import { SafetyNotice } from "@/components/safety-notice";
 import { editableReportStatuses, getReport, listCitableAnalyses, listToolChoices } from "@/db/queries/reports";
 import { listCalibrationWarnings } from "@/db/queries/runs";
@@ -30,8 +31,10 @@ export default async function ReportPage({ params }: PageProps<"/workspace/repor
       <div className="space-y-4">
         <p role="status" className="rounded border border-rule bg-paper-sunk px-4 py-2 text-sm">
           {reportStatusLabels[report.status]}
-          {report.submittedAt ? ` on ${report.submittedAt.toISOString().slice(0, 10)}` : ""}: read-only while the editors have it.
+          {report.submittedAt ? ` on ${report.submittedAt.toISOString().slice(0, 10)}` : ""}:{" "}
+          {report.status === "submitted" ? "read-only while the editors have it." : "read-only; a change goes through a revision the desk approves."}
         </p>
+        <DeskStatus report={report} />
         <ReportView report={report} />
       </div>
     );
@@ -54,6 +57,7 @@ export default async function ReportPage({ params }: PageProps<"/workspace/repor
         <h1 className="font-serif text-3xl">{report.title}</h1>
         <p className="text-ink-soft">By {report.authorName}</p>
       </header>
+      <DeskStatus report={report} />
       <SafetyNotice compact />
       <CalibrationWarnings warnings={warnings} toolOfRun={new Map(report.citations.map((citation) => [citation.runId, citation.toolName]))} />
       <ReportEditor
