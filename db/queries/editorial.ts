@@ -408,7 +408,7 @@ export async function listMakerReplies({ reportId }: { reportId: string }) {
 export type MakerReplyEntry = Awaited<ReturnType<typeof listMakerReplies>>[number];
 
 /** Published and retracted reports, newest first, with what their current revision says on the list. */
-export async function listReadableReports({ toolId }: { toolId?: string } = {}) {
+export async function listReadableReports({ toolSlug }: { toolSlug?: string } = {}) {
   return db
     .select({
       slug: reports.slug,
@@ -427,7 +427,9 @@ export async function listReadableReports({ toolId }: { toolId?: string } = {}) 
     .where(
       and(
         inArray(reports.status, [...readableStatuses]),
-        toolId === undefined ? undefined : sql`exists (select 1 from ${reportTools} where ${reportTools.reportId} = ${reports.id} and ${reportTools.toolId} = ${toolId})`,
+        toolSlug === undefined
+          ? undefined
+          : sql`exists (select 1 from ${reportTools} join ${tools} on ${tools.id} = ${reportTools.toolId} where ${reportTools.reportId} = ${reports.id} and ${tools.slug} = ${toolSlug})`,
       ),
     )
     .orderBy(desc(reports.firstPublishedAt));

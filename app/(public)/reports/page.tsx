@@ -1,8 +1,6 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { ReportCards } from "@/components/published-report/report-cards";
 import { listReadableReports } from "@/db/queries/editorial";
-import { formatDate } from "@/lib/format";
-import { revisionKindLabels } from "@/lib/validations/editorial";
 
 export const metadata: Metadata = { title: "Reports" };
 
@@ -17,30 +15,7 @@ export default async function ReportsPage() {
           with the reason.
         </p>
       </header>
-      <ul className="grid gap-4 md:grid-cols-2">
-        {reports.map((report) => (
-          <li key={report.slug} className="flex flex-col gap-2 rounded border border-rule bg-paper-raised p-4">
-            <p className="text-xs uppercase tracking-wide text-ink-faint">{report.tools}</p>
-            <h2 className="font-serif text-xl">
-              <Link href={`/reports/${report.slug}`} className="hover:text-copper">
-                {report.title}
-              </Link>
-            </h2>
-            <p className="text-sm text-ink-soft">
-              By {report.authorName}
-              {report.firstPublishedAt ? ` · published ${formatDate(report.firstPublishedAt)}` : ""}
-            </p>
-            <p className="flex flex-wrap gap-2 text-xs">
-              {report.status === "retracted" ? <span className="rounded bg-verdict-above px-2 py-0.5 font-semibold text-white">Retracted</span> : null}
-              {report.revisionKind !== "original" ? (
-                <span className="rounded border border-rule px-2 py-0.5">
-                  {revisionKindLabels[report.revisionKind]} (revision {report.revisionNumber}){report.revisedAt ? `, ${formatDate(report.revisedAt)}` : ""}
-                </span>
-              ) : null}
-            </p>
-          </li>
-        ))}
-      </ul>
+      <ReportCards reports={reports} />
       {reports.length === 0 ? <p className="text-ink-soft">Nothing is published yet.</p> : null}
     </section>
   );

@@ -1,7 +1,9 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { FigureList } from "@/components/figure-list";
+import { ReportCards } from "@/components/published-report/report-cards";
 import { getToolBySlug } from "@/db/queries/catalogue";
+import { listReadableReports } from "@/db/queries/editorial";
 import { listToolPhotos } from "@/db/queries/tool-photos";
 import { formatFrequencies, formatOptional, formatPrice, formatRange, formatRatedVoltage } from "@/lib/format";
 import { toolCategoryLabels } from "@/lib/validations/catalogue";
@@ -15,7 +17,7 @@ export async function generateMetadata({ params }: PageProps<"/tools/[slug]">): 
 
 export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
   const { slug } = await params;
-  const [tool, photos] = await Promise.all([getToolBySlug({ slug }), listToolPhotos({ toolSlug: slug })]);
+  const [tool, photos, reports] = await Promise.all([getToolBySlug({ slug }), listToolPhotos({ toolSlug: slug }), listReadableReports({ toolSlug: slug })]);
   if (!tool) notFound();
   const ratings: [string, string][] = [
     ["Rated power input", `${tool.ratedPowerW} W`],
@@ -38,6 +40,14 @@ export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
         <p className="max-w-2xl font-serif text-lg text-ink-soft">{tool.summary}</p>
       </header>
       {photos.length ? <ToolPhotoGallery photos={photos} /> : null}
+      {reports.length ? (
+        <section aria-labelledby="reports-heading" className="space-y-3">
+          <h2 id="reports-heading" className="font-serif text-2xl">
+            Bench reports on this tool
+          </h2>
+          <ReportCards reports={reports} headingLevel={3} />
+        </section>
+      ) : null}
       <section aria-labelledby="ratings-heading" className="max-w-2xl">
         <h2 id="ratings-heading" className="mb-3 font-serif text-2xl">
           Ratings as the maker states them
