@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { seededRequestIds } from "@/db/seeds/community-data";
 import { demoRuns } from "@/db/seeds/bench-runs-data";
+import { demoPublications } from "@/db/seeds/editorial-data";
 import { seededReportIds } from "@/db/seeds/reports-data";
 import { demoPassword, demoPeople, demoTools } from "@/db/seeds/people-and-catalogue-data";
 import { demoInstruments, demoProtocols } from "@/db/seeds/workspace-catalogue-data";
@@ -41,6 +42,14 @@ const samplePaths: Record<keyof typeof pageAccess, string> = {
   "/desk/requests": "/desk/requests",
   "/desk/requests/[id]": `/desk/requests/${seededRequestIds.mostWanted}`,
   "/desk/audit": "/desk/audit",
+  // editorial desk, publishing, comments (the demo reviewer's published report, corrected in revision 2)
+  "/reports": "/reports",
+  "/reports/[slug]": `/reports/${demoPublications[0]!.slug}`,
+  "/reports/[slug]/revisions/[number]": `/reports/${demoPublications[0]!.slug}/revisions/1`,
+  "/reports/[slug]/diff": `/reports/${demoPublications[0]!.slug}/diff?from=1&to=2`,
+  "/desk/reports/[id]": `/desk/reports/${demoPublications[0]!.id}`,
+  "/desk/comments": "/desk/comments",
+  "/workspace/reports/[id]/revise": `/workspace/reports/${demoPublications[0]!.id}/revise`,
   // workspace: reports
   "/workspace/reports": "/workspace/reports",
   "/workspace/reports/new": "/workspace/reports/new",
