@@ -104,7 +104,11 @@ export function cascadeMagnitude(sections: readonly Biquad[], frequencyHz: numbe
   return magnitude;
 }
 
-/** A cascade of sections with its state, flattened into typed arrays so the per-sample loop stays monomorphic. */
+/**
+ * A cascade of sections with its state, run a block at a time so that each section's loop keeps
+ * its coefficients and state in registers; sample by sample they went through memory at every
+ * section of every sample, a third of the flickermeter's filtering time. The arithmetic is the same.
+ */
 export class SectionCascade {
   private readonly coefficients: Float64Array;
   private readonly state: Float64Array;
@@ -117,18 +121,27 @@ export class SectionCascade {
     sections.forEach((q, i) => this.coefficients.set([q.b0, q.b1, q.b2, q.a1, q.a2], 5 * i));
   }
 
-  process(input: number): number {
+  /** Filters values[0, length) in place; the state carries over to the next block. */
+  processBlock(values: Float64Array, length: number): void {
     const c = this.coefficients;
     const z = this.state;
-    let x = input;
     for (let i = 0; i < this.count; i++) {
-      const k = 5 * i;
-      const j = 2 * i;
-      const y = c[k]! * x + z[j]!;
-      z[j] = c[k + 1]! * x - c[k + 3]! * y + z[j + 1]!;
-      z[j + 1] = c[k + 2]! * x - c[k + 4]! * y;
-      x = y;
+      const b0 = c[5 * i]!;
+      const b1 = c[5 * i + 1]!;
+      const b2 = c[5 * i + 2]!;
+      const a1 = c[5 * i + 3]!;
+      const a2 = c[5 * i + 4]!;
+      let z0 = z[2 * i]!;
+      let z1 = z[2 * i + 1]!;
+      for (let n = 0; n < length; n++) {
+        const x = values[n]!;
+        const y = b0 * x + z0;
+        z0 = b1 * x - a1 * y + z1;
+        z1 = b2 * x - a2 * y;
+        values[n] = y;
+      }
+      z[2 * i] = z0;
+      z[2 * i + 1] = z1;
     }
-    return x;
   }
 }
