@@ -5,6 +5,7 @@
  * reduced at once to the r.m.s. value of each half-cycle, which is all that IEC 61000-3-3's
  * d(t), dc and dmax and the flickermeter's demodulator need.
  */
+import { peakMagnitude } from "../electrical";
 
 export interface SupplyImpedance {
   resistanceOhm: number;
@@ -58,7 +59,7 @@ function fundamentalPhaseByCycle(current: Float64Array, sampleRateHz: number, fr
   const step = (2 * Math.PI * frequencyHz) / sampleRateHz;
   const stepCos = Math.cos(step);
   const stepSin = Math.sin(step);
-  const threshold = CONDUCTING_SHARE * current.reduce((a, b) => Math.max(a, Math.abs(b)), 0);
+  const threshold = CONDUCTING_SHARE * peakMagnitude(current);
   const phase = new Float64Array(cycles);
   const amplitude = new Float64Array(cycles);
   for (let k = 0; k < cycles; k++) {
