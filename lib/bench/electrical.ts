@@ -66,6 +66,13 @@ export function findZeroCrossings(signal: Float64Array, threshold: number, restS
   let previous = signal[0] ?? 0;
   for (let k = 1; k < signal.length; k++) {
     const value = signal[k] as number;
+    // Beyond the band on the side already entered, as the sample before was: no sign change and no
+    // crossing, so most samples of a sine skip the bookkeeping below.
+    if (value * state > threshold && previous * state > threshold) {
+      lastOutside = k;
+      previous = value;
+      continue;
+    }
     if (previous <= 0 !== value <= 0) lastSignChange = k;
     if (value > threshold || value < -threshold) {
       const direction = value > 0 ? 1 : -1;
