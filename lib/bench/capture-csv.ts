@@ -647,39 +647,44 @@ class CaptureReader {
             digits += p - fractionStart;
             c = digit + ZERO;
           }
-          if (digits > 0 && (c === UPPER_E || c === LOWER_E)) {
-            c = bytes[++p] as number;
-            let exponentNegative = false;
-            if (c === MINUS || c === PLUS) {
-              exponentNegative = c === MINUS;
-              c = bytes[++p] as number;
-            }
-            const exponentStart = p;
-            let written = 0;
-            while (c >= ZERO && c <= ZERO + 9) {
-              if (written < 10_000) written = written * 10 + (c - ZERO);
-              c = bytes[++p] as number;
-            }
-            if (p === exponentStart) digits = 0;
-            exponent += exponentNegative ? -written : written;
-          }
-          const numberEnd = p;
-          while (c === SPACE || c === QUOTE) c = bytes[++p] as number;
-          if (digits === 0 || !(c === delimiter || c === LF || c === CR)) {
-            this.line = line;
-            throw this.numberError(bytes, fieldStart, end, field);
-          }
-          // Exact when the digits fit 2^53 and |exponent| ≤ 22: one correctly rounded multiply or divide.
           let value: number;
-          if (digits > FAST_PATH_DIGITS || exponent > 22 || exponent < -22) {
-            value = slowNumber(bytes, numberStart, numberEnd);
-            if (!Number.isFinite(value)) {
+          if (digits > 0 && digits <= FAST_PATH_DIGITS && (c === delimiter || c === LF)) {
+            // The common field ends at its last digit: no exponent, padding or quotes to look for.
+            value = exponent === 0 ? mantissa : mantissa / (POWERS_OF_TEN[-exponent] as number);
+          } else {
+            if (digits > 0 && (c === UPPER_E || c === LOWER_E)) {
+              c = bytes[++p] as number;
+              let exponentNegative = false;
+              if (c === MINUS || c === PLUS) {
+                exponentNegative = c === MINUS;
+                c = bytes[++p] as number;
+              }
+              const exponentStart = p;
+              let written = 0;
+              while (c >= ZERO && c <= ZERO + 9) {
+                if (written < 10_000) written = written * 10 + (c - ZERO);
+                c = bytes[++p] as number;
+              }
+              if (p === exponentStart) digits = 0;
+              exponent += exponentNegative ? -written : written;
+            }
+            const numberEnd = p;
+            while (c === SPACE || c === QUOTE) c = bytes[++p] as number;
+            if (digits === 0 || !(c === delimiter || c === LF || c === CR)) {
               this.line = line;
               throw this.numberError(bytes, fieldStart, end, field);
             }
-          } else if (exponent === 0) value = mantissa;
-          else if (exponent > 0) value = mantissa * (POWERS_OF_TEN[exponent] as number);
-          else value = mantissa / (POWERS_OF_TEN[-exponent] as number);
+            // Exact when the digits fit 2^53 and |exponent| ≤ 22: one correctly rounded multiply or divide.
+            if (digits > FAST_PATH_DIGITS || exponent > 22 || exponent < -22) {
+              value = slowNumber(bytes, numberStart, numberEnd);
+              if (!Number.isFinite(value)) {
+                this.line = line;
+                throw this.numberError(bytes, fieldStart, end, field);
+              }
+            } else if (exponent === 0) value = mantissa;
+            else if (exponent > 0) value = mantissa * (POWERS_OF_TEN[exponent] as number);
+            else value = mantissa / (POWERS_OF_TEN[-exponent] as number);
+          }
           if (negative) value = -value;
           if (role === CURRENT) currentValue = value;
           else if (role === VOLTAGE) voltageValue = value;
