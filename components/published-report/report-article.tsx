@@ -9,8 +9,8 @@ import { RunsMeasured } from "./runs-measured";
 
 /**
  * A report as readers see it, drawn only from a revision's frozen content: the title and byline, the notices the page
- * needs (correction, retraction), the body, every verdict, how the runs were made, the safety cautions and the
- * disclosure. The desk shows a report waiting for approval through the same component.
+ * needs (correction, retraction), the body, every verdict, how the runs were made, the safety cautions (the standard
+ * notice and the protocol's own) and the disclosure. The desk shows a report waiting for approval through the same component.
  */
 export function ReportArticle({
   content,
@@ -46,7 +46,6 @@ export function ReportArticle({
         <div className="text-sm text-ink-faint">{meta}</div>
       </header>
       {notices}
-      <SafetyNotice />
       <div className="prose prose-stone max-w-3xl font-serif prose-headings:font-serif">{body}</div>
 
       <section aria-labelledby="verdicts-heading" className="space-y-2">
@@ -67,18 +66,18 @@ export function ReportArticle({
 
       <RunsMeasured runs={content.runs} />
 
-      {cautions.length ? (
-        <section aria-labelledby="cautions-heading" className="max-w-3xl space-y-2">
-          <h2 id="cautions-heading" className="font-serif text-2xl">
-            Safety cautions from the protocol
-          </h2>
-          {cautions.map((caution) => (
-            <p key={caution} className="whitespace-pre-line border-l-4 border-copper bg-copper-wash/60 px-4 py-3 text-sm text-ink-soft">
-              {caution}
-            </p>
-          ))}
-        </section>
-      ) : null}
+      <section aria-labelledby="cautions-heading" className="max-w-3xl space-y-2">
+        <h2 id="cautions-heading" className="font-serif text-2xl">
+          Safety
+        </h2>
+        <SafetyNotice />
+        {cautions.length ? <p className="text-sm font-semibold">The protocol&apos;s own cautions:</p> : null}
+        {cautions.map((caution) => (
+          <p key={caution} className="whitespace-pre-line border-l-4 border-copper bg-copper-wash/60 px-4 py-3 text-sm text-ink-soft">
+            {caution}
+          </p>
+        ))}
+      </section>
 
       <section aria-labelledby="disclosure-heading" className="max-w-3xl rounded border border-rule bg-paper-raised px-4 py-3 text-sm">
         <h2 id="disclosure-heading" className="font-semibold">

@@ -33,6 +33,29 @@ export default async function DeskPage() {
         </p>
       </header>
 
+      <nav aria-label="Desk" className="max-w-4xl">
+        <ul className="grid gap-3 sm:grid-cols-3">
+          <li>
+            <Link href="/desk/comments" className="block h-full rounded border border-rule bg-paper-raised p-4 hover:border-copper">
+              <span className="font-serif text-lg">Comments</span>
+              <span className="block text-sm text-ink-soft">{moderation.tally.pending} waiting for moderation; trusted readers.</span>
+            </Link>
+          </li>
+          <li>
+            <Link href="/desk/requests" className="block h-full rounded border border-rule bg-paper-raised p-4 hover:border-copper">
+              <span className="font-serif text-lg">Measurement requests</span>
+              <span className="block text-sm text-ink-soft">Plan, decline, merge duplicates, link the answering report.</span>
+            </Link>
+          </li>
+          <li>
+            <Link href="/desk/audit" className="block h-full rounded border border-rule bg-paper-raised p-4 hover:border-copper">
+              <span className="font-serif text-lg">Audit log</span>
+              <span className="block text-sm text-ink-soft">Every editorial, moderation and account action.</span>
+            </Link>
+          </li>
+        </ul>
+      </nav>
+
       <section aria-labelledby="queue-heading" className="space-y-3">
         <h2 id="queue-heading" className="font-serif text-2xl">
           Waiting for a decision <span className="figure text-base text-ink-faint">({queue.length})</span>
@@ -76,28 +99,6 @@ export default async function DeskPage() {
         </ol>
       </section>
 
-      <nav aria-label="Desk" className="max-w-3xl">
-        <ul className="grid gap-3 sm:grid-cols-3">
-          <li>
-            <Link href="/desk/comments" className="block h-full rounded border border-rule bg-paper-raised p-4 hover:border-copper">
-              <span className="font-serif text-lg">Comments</span>
-              <span className="block text-sm text-ink-soft">{moderation.tally.pending} waiting for moderation; trusted readers.</span>
-            </Link>
-          </li>
-          <li>
-            <Link href="/desk/requests" className="block h-full rounded border border-rule bg-paper-raised p-4 hover:border-copper">
-              <span className="font-serif text-lg">Measurement requests</span>
-              <span className="block text-sm text-ink-soft">Plan, decline, merge duplicates, link the answering report.</span>
-            </Link>
-          </li>
-          <li>
-            <Link href="/desk/audit" className="block h-full rounded border border-rule bg-paper-raised p-4 hover:border-copper">
-              <span className="font-serif text-lg">Audit log</span>
-              <span className="block text-sm text-ink-soft">Every editorial, moderation and account action.</span>
-            </Link>
-          </li>
-        </ul>
-      </nav>
     </div>
   );
 }

@@ -75,16 +75,19 @@ export default async function DeskReportPage({ params }: PageProps<"/desk/report
           <h2 id="revisions-heading" className="font-serif text-2xl">
             Revisions
           </h2>
-          {revisions.length === 0 ? <p className="text-sm text-ink-soft">None yet: approval makes revision 1.</p> : null}
-          <ol className="divide-y divide-rule rounded border border-rule bg-paper-raised text-sm">
-            {revisions.map((revision) => (
-              <li key={revision.id} className="px-4 py-2">
-                <strong>Revision {revision.number}</strong> · {revisionKindLabels[revision.kind]} · {revision.status}
-                {revision.publishedAt ? ` ${formatDateTime(revision.publishedAt)}` : ""} · proposed by {revision.proposedByName ?? "a deleted account"}
-                <span className="block text-ink-soft">{revision.changeNote}</span>
-              </li>
-            ))}
-          </ol>
+          {revisions.length === 0 ? (
+            <p className="text-sm text-ink-soft">None yet: approval makes revision 1.</p>
+          ) : (
+            <ol className="divide-y divide-rule rounded border border-rule bg-paper-raised text-sm">
+              {revisions.map((revision) => (
+                <li key={revision.id} className="px-4 py-2">
+                  <strong>Revision {revision.number}</strong> · {revisionKindLabels[revision.kind]} · {revision.status}
+                  {revision.publishedAt ? ` ${formatDateTime(revision.publishedAt)}` : ""} · proposed by {revision.proposedByName ?? "a deleted account"}
+                  <span className="block text-ink-soft">{revision.changeNote}</span>
+                </li>
+              ))}
+            </ol>
+          )}
         </section>
       </div>
 
