@@ -51,7 +51,11 @@ export function decisionMail({
 }): MailMessage {
   const revision = revisionNumber && revisionNumber > 1 ? `Revision ${revisionNumber} of “${title}”` : `“${title}”`;
   const { subject, news, link } = {
-    approve: { subject: `Published: ${title}`, news: `${revision} is published.`, link: `${origin}/reports/${slug}` },
+    approve: {
+      subject: revisionNumber && revisionNumber > 1 ? `Revision ${revisionNumber} published: ${title}` : `Published: ${title}`,
+      news: `${revision} is published.`,
+      link: `${origin}/reports/${slug}`,
+    },
     schedule: {
       subject: `Scheduled: ${title}`,
       news: `${revision} is approved and will be published on ${publishAt ? formatDateTime(publishAt) : "the chosen date"}.`,
