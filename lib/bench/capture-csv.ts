@@ -104,11 +104,18 @@ export async function readCaptureFile(path: string, options: CaptureReadOptions 
   try {
     const { size } = await handle.stat();
     const reader = new CaptureReader({ ...options, sizeHintBytes: options.sizeHintBytes ?? size });
-    // One buffer reused for every read: the reader copies only a line cut at a chunk's end.
-    const buffer = Buffer.allocUnsafe(READ_CHUNK_BYTES);
-    for (;;) {
-      const { bytesRead } = await handle.read(buffer, 0, buffer.length, null);
+    // Two buffers in turn, the next chunk read on libuv's thread pool while this one is parsed; the
+    // reader copies only a line cut at a chunk's end, so a buffer is free again once pushed.
+    const buffers = [Buffer.allocUnsafe(READ_CHUNK_BYTES), Buffer.allocUnsafe(READ_CHUNK_BYTES)];
+    let position = 0;
+    let reading = handle.read(buffers[0] as Buffer, 0, READ_CHUNK_BYTES, position);
+    for (let turn = 1; ; turn++) {
+      const { bytesRead, buffer } = await reading;
       if (bytesRead === 0) break;
+      position += bytesRead;
+      reading = handle.read(buffers[turn % 2] as Buffer, 0, READ_CHUNK_BYTES, position);
+      // If parsing fails, this read is never awaited: its own failure must not go unhandled.
+      reading.catch(() => undefined);
       reader.push(buffer.subarray(0, bytesRead));
     }
     return reader.finish();
