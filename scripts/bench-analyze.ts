@@ -1,12 +1,15 @@
 // npm run bench:analyze: writes a 10-million-sample, two-channel capture at
-// 50 kS/s, runs the analysis exactly as `analyze --json` does, and times a
-// plain numpy.loadtxt + RMS of the same file for comparison.
-// Target: at least twice as fast as numpy and under 300 MB peak memory.
+// 50 kS/s, then, round after round, runs the analysis exactly as `analyze --json`
+// does (in a fresh process, as the CLI starts one) and times a plain
+// numpy.loadtxt + RMS of the same file for comparison; prints every round and
+// the medians. Target: at least twice as fast as numpy and under 300 MB peak memory.
+// `npm run bench:analyze -- --rounds N` changes the number of rounds (3).
 
 import { spawnSync } from "node:child_process";
 import { closeSync, mkdtempSync, openSync, rmSync, statSync, writeSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { loadavg, tmpdir } from "node:os";
 import { join } from "node:path";
+import { parseArgs } from "node:util";
 import { analyzeCapture } from "../lib/bench/analysis";
 
 const SAMPLES = 10_000_000;
@@ -93,43 +96,118 @@ function numpyBaseline(path: string): NumpyTiming {
   return JSON.parse(run.stdout) as NumpyTiming;
 }
 
+/** One analysis as the CLI runs it, measured from inside its own process. */
+interface AnalysisTiming {
+  stages: { stage: string; milliseconds: number; cpuMilliseconds: number }[];
+  milliseconds: number;
+  cpuMilliseconds: number;
+  peakMegabytes: number;
+  jsonBytes: number;
+  rms: number;
+  frequencyHz: number;
+  duty: number;
+}
+
+const cpuMillisecondsSince = (before: NodeJS.CpuUsage) => {
+  const used = process.cpuUsage(before);
+  return (used.user + used.system) / 1000;
+};
+
+/** The child's side: analyzeCapture and JSON.stringify, as `analyze --json` does them, with each stage's wall and CPU time. */
+async function measureAnalysis(path: string): Promise<AnalysisTiming> {
+  const stages: AnalysisTiming["stages"] = [];
+  const cpuBefore = process.cpuUsage();
+  let stageCpu = process.cpuUsage();
+  const started = performance.now();
+  const result = await analyzeCapture({ path }, {}, (stage, milliseconds) => {
+    stages.push({ stage, milliseconds, cpuMilliseconds: cpuMillisecondsSince(stageCpu) });
+    stageCpu = process.cpuUsage();
+  });
+  const jsonStarted = performance.now();
+  const json = JSON.stringify(result);
+  stages.push({ stage: "json", milliseconds: performance.now() - jsonStarted, cpuMilliseconds: cpuMillisecondsSince(stageCpu) });
+  return {
+    stages,
+    milliseconds: performance.now() - started,
+    cpuMilliseconds: cpuMillisecondsSince(cpuBefore),
+    peakMegabytes: (process.resourceUsage().maxRSS * 1024) / 1e6,
+    jsonBytes: json.length,
+    rms: result.current.rms,
+    frequencyHz: result.frequencyHz,
+    duty: result.halfCycles.duty,
+  };
+}
+
+/** A fresh process per round, started as this one was (tsx's loader included), so each round is a cold start like the CLI's. */
+function analysisRound(path: string): AnalysisTiming {
+  const script = process.argv[1] as string;
+  const run = spawnSync(process.execPath, [...process.execArgv, script, "--measure", path], { encoding: "utf8" });
+  if (run.status !== 0) throw new Error(`analysis round failed: ${run.stderr || run.error?.message}`);
+  return JSON.parse(run.stdout) as AnalysisTiming;
+}
+
 const seconds = (milliseconds: number) => `${(milliseconds / 1000).toFixed(3)} s`;
 
+function median(values: number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  const middle = sorted.length >> 1;
+  return sorted.length % 2 === 1 ? (sorted[middle] as number) : ((sorted[middle - 1] as number) + (sorted[middle] as number)) / 2;
+}
+
 async function main(): Promise<void> {
+  const { values } = parseArgs({ options: { measure: { type: "string" }, rounds: { type: "string", default: "3" } } });
+  if (values.measure !== undefined) {
+    process.stdout.write(JSON.stringify(await measureAnalysis(values.measure)));
+    return;
+  }
+  const rounds = Number(values.rounds);
+  if (!Number.isInteger(rounds) || rounds < 1) throw new Error(`--rounds must be a positive whole number, got ${values.rounds}`);
+
   const directory = mkdtempSync(join(tmpdir(), "benchplate-bench-"));
   const path = join(directory, "capture.csv");
   try {
-    let started = performance.now();
+    const started = performance.now();
     writeCapture(path);
     const megabytes = statSync(path).size / 1e6;
     console.log(`capture: ${SAMPLES} samples × 2 channels at ${SAMPLE_RATE_HZ} S/s, ${megabytes.toFixed(1)} MB, written in ${seconds(performance.now() - started)}`);
 
-    const stages: [string, number][] = [];
-    const cpuBefore = process.cpuUsage();
-    started = performance.now();
-    const result = await analyzeCapture({ path }, {}, (stage, milliseconds) => stages.push([stage, milliseconds]));
-    const stageStart = performance.now();
-    const json = JSON.stringify(result);
-    stages.push(["json", performance.now() - stageStart]);
-    const total = performance.now() - started;
-    const cpu = process.cpuUsage(cpuBefore);
-    const peakMegabytes = (process.resourceUsage().maxRSS * 1024) / 1e6;
+    // Rounds alternate the two so that both meet the same load on a shared machine.
+    const analyses: AnalysisTiming[] = [];
+    const baselines: NumpyTiming[] = [];
+    for (let round = 1; round <= rounds; round++) {
+      const analysis = analysisRound(path);
+      const numpy = numpyBaseline(path);
+      analyses.push(analysis);
+      baselines.push(numpy);
+      console.log(
+        `round ${round} (load ${(loadavg()[0] as number).toFixed(1)}): analysis ${seconds(analysis.milliseconds)} wall, ${seconds(analysis.cpuMilliseconds)} CPU, ` +
+          `peak ${analysis.peakMegabytes.toFixed(1)} MB; numpy ${numpy.seconds.toFixed(3)} s wall, ${numpy.cpuSeconds.toFixed(3)} s CPU; ` +
+          `${((numpy.seconds * 1000) / analysis.milliseconds).toFixed(2)}× by wall, ${((numpy.cpuSeconds * 1000) / analysis.cpuMilliseconds).toFixed(2)}× by CPU`,
+      );
+    }
 
-    for (const [stage, milliseconds] of stages) console.log(`  ${stage.padEnd(12)}${seconds(milliseconds)}`);
-    console.log(`analysis total: ${seconds(total)} wall, ${seconds((cpu.user + cpu.system) / 1000)} CPU (${json.length} bytes of JSON)`);
-    console.log(`peak resident memory: ${peakMegabytes.toFixed(1)} MB (target < 300 MB)`);
-    console.log(`check: current RMS ${result.current.rms.toFixed(4)} A, frequency ${result.frequencyHz.toFixed(3)} Hz, duty ${result.halfCycles.duty.toFixed(3)}`);
-
-    const numpy = numpyBaseline(path);
+    const first = analyses[0] as AnalysisTiming;
+    console.log(`stages, median of ${rounds} (wall / CPU):`);
+    first.stages.forEach(({ stage }, k) => {
+      const wall = median(analyses.map((analysis) => analysis.stages[k]?.milliseconds ?? 0));
+      const cpu = median(analyses.map((analysis) => analysis.stages[k]?.cpuMilliseconds ?? 0));
+      console.log(`  ${stage.padEnd(12)}${seconds(wall)} / ${seconds(cpu)}`);
+    });
+    const wall = median(analyses.map((analysis) => analysis.milliseconds));
+    const cpu = median(analyses.map((analysis) => analysis.cpuMilliseconds));
+    const numpyWall = median(baselines.map((numpy) => numpy.seconds));
+    const numpyCpu = median(baselines.map((numpy) => numpy.cpuSeconds));
+    console.log(`analysis total, median: ${seconds(wall)} wall, ${seconds(cpu)} CPU (${first.jsonBytes} bytes of JSON)`);
+    console.log(`peak resident memory: ${Math.max(...analyses.map((analysis) => analysis.peakMegabytes)).toFixed(1)} MB, the largest of the rounds (target < 300 MB)`);
+    console.log(`check: current RMS ${first.rms.toFixed(4)} A, frequency ${first.frequencyHz.toFixed(3)} Hz, duty ${first.duty.toFixed(3)}`);
     console.log(
-      `numpy.loadtxt + RMS: ${numpy.seconds.toFixed(3)} s wall, ${numpy.cpuSeconds.toFixed(3)} s CPU ` +
-        `(current RMS ${numpy.rms.toFixed(4)} A over every sample)`,
+      `numpy.loadtxt + RMS, median: ${numpyWall.toFixed(3)} s wall, ${numpyCpu.toFixed(3)} s CPU ` +
+        `(current RMS ${(baselines[0] as NumpyTiming).rms.toFixed(4)} A over every sample)`,
     );
-    const cpuSeconds = (cpu.user + cpu.system) / 1e6;
     // On a shared machine wall time swings with other load; CPU time is the steadier comparison, so both are shown.
     console.log(
-      `speed: ${(numpy.seconds / (total / 1000)).toFixed(2)}× numpy by wall time, ` +
-        `${(numpy.cpuSeconds / cpuSeconds).toFixed(2)}× by CPU time (target ≥ 2×)`,
+      `speed, medians: ${((numpyWall * 1000) / wall).toFixed(2)}× numpy by wall time, ` +
+        `${((numpyCpu * 1000) / cpu).toFixed(2)}× by CPU time (target ≥ 2×)`,
     );
   } finally {
     rmSync(directory, { recursive: true, force: true });
