@@ -7,6 +7,7 @@ import type { ProtocolConditions } from "@/db/schema";
 import { isCalibrationOverdue } from "@/lib/calibration";
 import { runFormSchema, runUpdateSchema, unitSourceLabels, unitSources } from "@/lib/validations/runs";
 import { createRun, updateRun } from "../actions";
+import { formKey } from "./form-key";
 
 type Choice = { id: string; name: string };
 
@@ -65,7 +66,7 @@ export function RunForm({
   );
 
   return (
-    <form action={formAction} className="space-y-8" noValidate>
+    <form key={formKey(state)} action={formAction} className="space-y-8" noValidate>
       {edit ? <input type="hidden" name="runId" value={edit.runId} /> : null}
       {!edit ? (
         <fieldset className="grid gap-4 sm:grid-cols-3">

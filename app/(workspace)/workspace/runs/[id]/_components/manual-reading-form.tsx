@@ -8,6 +8,7 @@ import { measurementKindInfo, measurementKinds } from "@/lib/measurement-kinds";
 import { manualReadingSchema } from "@/lib/validations/runs";
 import { DecisionRuleSelect } from "../../_components/decision-rule-select";
 import { addManualReading } from "../../actions";
+import { formKey } from "../../_components/form-key";
 
 export function ManualReadingForm({
   runId,
@@ -26,7 +27,7 @@ export function ManualReadingForm({
   // After a reading is recorded the form starts afresh; after a refusal it keeps what was typed.
   const values = state.status === "ok" ? undefined : state.values;
   return (
-    <form action={formAction} className="grid gap-4 rounded border border-rule bg-paper-raised p-4 sm:grid-cols-2" noValidate>
+    <form key={formKey(state)} action={formAction} className="grid gap-4 rounded border border-rule bg-paper-raised p-4 sm:grid-cols-2" noValidate>
       <input type="hidden" name="runId" value={runId} />
       <SelectField label="What was measured" name="kind" errors={errors} value={kind} onChange={(event) => setKind(event.target.value as MeasurementKind)}>
         {measurementKinds.map((option) => (
