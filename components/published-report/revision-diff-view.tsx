@@ -42,7 +42,7 @@ export function RevisionDiffView({ figures, body, from, to }: { figures: FigureC
           Text that changed
         </h2>
         {bodyChanged ? (
-          <pre className="max-h-[40rem] overflow-auto rounded border border-rule bg-paper-raised p-3 text-xs leading-relaxed">
+          <pre className="max-h-[40rem] overflow-auto whitespace-pre-wrap break-words rounded border border-rule bg-paper-raised p-3 text-xs leading-relaxed">
             {body.map((part, index) => (
               // The parts are a fixed sequence computed once; their position is their identity.
               <span

@@ -63,8 +63,14 @@ export const proposeRevisionSchema = z.preprocess(
     disclosure: optionalText(4000).transform((value) => value ?? ""),
     bodyMdx: z
       .string({ error: "Write the body of the report." })
-      .max(MAX_MDX_LENGTH, `The body is limited to ${MAX_MDX_LENGTH} characters.`)
-      .refine((body) => body.trim() !== "", "Write the body of the report."),
+      // A browser sends a textarea's lines ending in CR LF; kept as typed, every line would differ from the last revision.
+      .transform((body) => body.replace(/\r\n?/g, "\n"))
+      .pipe(
+        z
+          .string()
+          .max(MAX_MDX_LENGTH, `The body is limited to ${MAX_MDX_LENGTH} characters.`)
+          .refine((body) => body.trim() !== "", "Write the body of the report."),
+      ),
     citations: z
       .array(z.object({ label: z.string().regex(referenceNamePattern, "Unknown citation."), analysisId: z.uuid("Choose a finished analysis.") }))
       .max(40),

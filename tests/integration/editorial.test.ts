@@ -266,8 +266,19 @@ describe("a correction after a re-analysis", () => {
   it("declines a later revision with notes and keeps the published one", async () => {
     actAs(editor);
     expect(
-      (await call(proposeRevision, { reportId, kind: "amendment", changeNote: "A link to the protocol page added.", title: "Corrected after a re-analysis", bodyMdx: body("full-power") })).status,
+      (
+        await call(proposeRevision, {
+          reportId,
+          kind: "amendment",
+          changeNote: "A link to the protocol page added.",
+          title: "Corrected after a re-analysis",
+          // As a browser posts a textarea: every line ends in CR LF.
+          bodyMdx: body("full-power").replace(/\n/g, "\r\n"),
+        })
+      ).status,
     ).toBe("ok");
+    const [pending] = await db.select({ bodyMdx: reportRevisions.bodyMdx }).from(reportRevisions).where(and(eq(reportRevisions.reportId, reportId), eq(reportRevisions.status, "pending")));
+    expect(pending!.bodyMdx).toBe(body("full-power"));
     expect((await call(sendBackReport, { reportId, notes: "Not needed: the protocol is linked already." })).status).toBe("ok");
     const [latest] = await db.select({ decision: editorialDecisions.decision }).from(editorialDecisions).where(eq(editorialDecisions.reportId, reportId)).orderBy(desc(editorialDecisions.createdAt)).limit(1);
     expect(latest!.decision).toBe("reject_revision");

@@ -92,7 +92,7 @@ export default async function DeskReportPage({ params }: PageProps<"/desk/report
       </div>
 
       {report.status === "published" ? (
-        <div className="grid gap-4 lg:grid-cols-2">
+        <div className="grid items-start gap-4 lg:grid-cols-2">
           <RetractForm reportId={report.id} />
           <MakerReplyForm reportId={report.id} />
         </div>

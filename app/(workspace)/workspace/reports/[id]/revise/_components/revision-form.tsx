@@ -34,7 +34,7 @@ export function RevisionForm({ report, citable }: { report: RevisionFormReport; 
         values={values}
         hint="Readers see this beside the revision: what changed and why."
       />
-      <fieldset className="space-y-3 rounded border border-rule p-4">
+      <fieldset className="min-w-0 space-y-3 rounded border border-rule p-4">
         <legend className="px-1 text-sm font-semibold">Cited analyses</legend>
         <p className="text-xs text-ink-faint">Point a label at a newer analysis (after a re-analysis) to carry its figures into this revision.</p>
         {report.citations.map((citation, index) => (
