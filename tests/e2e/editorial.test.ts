@@ -7,7 +7,7 @@ import { reportAnalyses, reports, reportTools, users } from "@/db/schema";
 import { demoPassword, demoPeople } from "@/db/seeds/people-and-catalogue-data";
 import { seededReportIds } from "@/db/seeds/reports-data";
 import { DESKTOP_VIEWPORT, PHONE_VIEWPORT, launchBrowser, signIn, url, type E2eBrowser } from "../support/e2e";
-import { listMessages, waitForMessage } from "../support/mail";
+import { expectExactlyOnce } from "../support/mail";
 
 const editor = demoPeople.find((person) => person.role === "editor")!;
 const reviewer = demoPeople.find((person) => person.email === "nadia.orlen@benchplate.test")!;
@@ -16,15 +16,6 @@ const title = `Aeris 720 on the desk ${run}`;
 const slug = `aeris-720-on-the-desk-${run}`;
 
 const patiently = { timeout: 15_000 };
-
-/** Waits for the message, then gives a late duplicate time to arrive before counting. */
-async function expectExactlyOnce(email: string, subject: string) {
-  await waitForMessage(email, subject, { timeoutMs: 90_000 });
-  await new Promise((resolve) => setTimeout(resolve, 2_000));
-  const matching = (await listMessages(email)).filter((message) => message.subject === subject);
-  expect(matching, `${subject} to ${email}`).toHaveLength(1);
-  return matching[0]!;
-}
 
 /**
  * The reviewer's draft, written straight into the database from the seeded draft's tools and citations: what is under

@@ -3,7 +3,7 @@ import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoPassword, demoPeople } from "@/db/seeds/people-and-catalogue-data";
 import { launchBrowser, signIn, url, type E2eBrowser } from "../support/e2e";
-import { listMessages, waitForMessage } from "../support/mail";
+import { expectExactlyOnce, listMessages } from "../support/mail";
 
 const editor = demoPeople.find((person) => person.role === "editor")!;
 const run = randomUUID().slice(0, 8);
@@ -42,15 +42,6 @@ async function vote(reader: Reader, requestId: string) {
   await reader.page.goto(url(`/requests/${requestId}`));
   await reader.page.getByRole("button", { name: /^Vote for/ }).click();
   await expect.poll(() => reader.page.getByRole("button", { name: /^Withdraw your vote/ }).count(), patiently).toBe(1);
-}
-
-/** Waits for the message, then gives a late duplicate time to arrive before counting. */
-async function expectExactlyOnce(email: string, subject: string) {
-  await waitForMessage(email, subject, { timeoutMs: 90_000 });
-  await new Promise((resolve) => setTimeout(resolve, 2_000));
-  const matching = (await listMessages(email)).filter((message) => message.subject === subject);
-  expect(matching, `${subject} to ${email}`).toHaveLength(1);
-  return matching[0]!;
 }
 
 describe("a measurement request from posting through votes and a merge to being planned", () => {

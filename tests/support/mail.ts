@@ -41,3 +41,15 @@ export async function waitForMessage(
   const subjects = seen.map((message) => JSON.stringify(message.subject)).join(", ") || "none";
   throw new Error(`no message to ${to} matching ${String(subjectMatch)} within ${timeoutMs} ms (subjects: ${subjects})`);
 }
+
+/**
+ * The one message to `to` with exactly this subject: waits for it, then gives a late duplicate time to arrive before
+ * counting, and fails if there is not exactly one.
+ */
+export async function expectExactlyOnce(to: string, subject: string): Promise<FakeMailMessage> {
+  await waitForMessage(to, subject, { timeoutMs: 90_000 });
+  await new Promise((resolve) => setTimeout(resolve, 2_000));
+  const matching = (await listMessages(to)).filter((message) => message.subject === subject);
+  if (matching.length !== 1) throw new Error(`${matching.length} messages “${subject}” to ${to}, expected exactly one`);
+  return matching[0]!;
+}
