@@ -14,6 +14,7 @@ const perPage = 50;
 const subjectPages: Partial<Record<string, (id: string) => string>> = {
   measurement_request: (id) => `/desk/requests/${id}`,
   report: (id) => `/desk/reports/${id}`,
+  comment: () => "/desk/comments",
 };
 
 function labelOf<T extends Record<string, string>>(labels: T, key: string): string {

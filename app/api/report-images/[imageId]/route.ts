@@ -8,7 +8,8 @@ import { handleRoute } from "@/lib/route-handler";
 export async function GET(_request: Request, { params }: RouteContext<"/api/report-images/[imageId]">) {
   return handleRoute("GET /api/report-images/[imageId]", z.object({ imageId: z.uuid("Unknown image.") }), await params, async ({ imageId }, user) => {
     const image = await getReportImageForServing({ imageId });
-    const published = image?.reportStatus === "published";
+    // A retracted report stays readable, pictures included.
+    const published = image?.reportStatus === "published" || image?.reportStatus === "retracted";
     const mayView = published || (user !== null && (user.id === image?.authorId || can(user.role, "workspace:edit-any")));
     // A draft's picture answers 404 to everyone else, exactly like a missing one: its existence is not theirs to learn.
     if (!image || !mayView) throw new UserFacingError("No such image.", 404);
