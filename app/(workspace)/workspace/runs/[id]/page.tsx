@@ -182,7 +182,8 @@ export default async function RunPage({ params }: PageProps<"/workspace/runs/[id
         <h2 id="readings-heading" className="font-serif text-2xl">
           Manual readings
         </h2>
-        <div className="overflow-x-auto rounded border border-rule bg-paper-raised">
+        {/* relative: the delete buttons' screen-reader labels are positioned, and would otherwise widen the page on a phone. */}
+        <div className="relative overflow-x-auto rounded border border-rule bg-paper-raised">
           <table className="w-full min-w-[56rem] text-left text-sm">
             <caption className="sr-only">Readings taken by hand, with their spread, uncertainty and verdict</caption>
             <thead className="bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft">

@@ -8,6 +8,7 @@ import { isCalibrationOverdue } from "@/lib/calibration";
 import { runFormSchema, runUpdateSchema, unitSourceLabels, unitSources } from "@/lib/validations/runs";
 import { createRun, updateRun } from "../actions";
 import { formKey } from "./form-key";
+import { narrowFields } from "./narrow-fields";
 
 type Choice = { id: string; name: string };
 
@@ -66,7 +67,7 @@ export function RunForm({
   );
 
   return (
-    <form key={formKey(state)} action={formAction} className="space-y-8" noValidate>
+    <form key={formKey(state)} action={formAction} className={`space-y-8 ${narrowFields}`} noValidate>
       {edit ? <input type="hidden" name="runId" value={edit.runId} /> : null}
       {!edit ? (
         <fieldset className="grid gap-4 sm:grid-cols-3">

@@ -4,6 +4,7 @@ import { useRouter } from "next/navigation";
 import { useId, useState, type FormEvent } from "react";
 import { fieldErrorsOf } from "@/lib/form-data";
 import { captureKindLabels, captureKinds, captureLimits, captureUploadRequestSchema } from "@/lib/validations/runs";
+import { narrowFields } from "../../_components/narrow-fields";
 
 type Phase = { step: "idle" } | { step: "uploading"; percent: number } | { step: "confirming" } | { step: "failed"; message: string };
 
@@ -82,7 +83,7 @@ export function CaptureUpload({ runId }: { runId: string }) {
 
   const fileErrors = [...(fieldErrors.fileName ?? []), ...(fieldErrors.sizeBytes ?? [])];
   return (
-    <form onSubmit={upload} className="grid gap-4 rounded border border-rule bg-paper-raised p-4 sm:grid-cols-2" noValidate>
+    <form onSubmit={upload} className={`grid gap-4 rounded border border-rule bg-paper-raised p-4 sm:grid-cols-2 ${narrowFields}`} noValidate>
       <fieldset className="flex flex-col gap-1">
         <legend className="text-sm font-semibold">What the capture holds</legend>
         {captureKinds.map((kind, index) => (

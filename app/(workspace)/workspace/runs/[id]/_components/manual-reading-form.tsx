@@ -9,6 +9,7 @@ import { manualReadingSchema } from "@/lib/validations/runs";
 import { DecisionRuleSelect } from "../../_components/decision-rule-select";
 import { addManualReading } from "../../actions";
 import { formKey } from "../../_components/form-key";
+import { narrowFields } from "../../_components/narrow-fields";
 
 export function ManualReadingForm({
   runId,
@@ -27,7 +28,7 @@ export function ManualReadingForm({
   // After a reading is recorded the form starts afresh; after a refusal it keeps what was typed.
   const values = state.status === "ok" ? undefined : state.values;
   return (
-    <form key={formKey(state)} action={formAction} className="grid gap-4 rounded border border-rule bg-paper-raised p-4 sm:grid-cols-2" noValidate>
+    <form key={formKey(state)} action={formAction} className={`grid gap-4 rounded border border-rule bg-paper-raised p-4 sm:grid-cols-2 ${narrowFields}`} noValidate>
       <input type="hidden" name="runId" value={runId} />
       <SelectField label="What was measured" name="kind" errors={errors} value={kind} onChange={(event) => setKind(event.target.value as MeasurementKind)}>
         {measurementKinds.map((option) => (

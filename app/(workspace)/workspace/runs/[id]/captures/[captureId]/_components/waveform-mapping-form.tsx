@@ -8,6 +8,7 @@ import { startWaveformAnalysis } from "../../../../actions";
 import { DecisionRuleSelect } from "../../../../_components/decision-rule-select";
 import { AccuracySelect, ColumnSelect } from "./mapping-fields";
 import { formKey } from "../../../../_components/form-key";
+import { narrowFields } from "../../../../_components/narrow-fields";
 
 export function WaveformMappingForm({
   captureId,
@@ -28,7 +29,7 @@ export function WaveformMappingForm({
   const errors = state.fieldErrors;
   const values = state.values ?? defaults;
   return (
-    <form key={formKey(state)} action={formAction} className="space-y-6" noValidate>
+    <form key={formKey(state)} action={formAction} className={`space-y-6 ${narrowFields}`} noValidate>
       <input type="hidden" name="captureId" value={captureId} />
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 font-serif text-xl">Columns and scales</legend>
