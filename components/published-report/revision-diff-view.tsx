@@ -1,5 +1,14 @@
 import type { FigureChange, TextChange } from "@/lib/revision-diff";
 
+const context = 2;
+
+/** A long unchanged stretch shows only its first and last lines around an ellipsis (null), so the changes stand out. */
+function shownLines(part: TextChange): (string | null)[] {
+  const lines = part.text.replace(/\n$/, "").split("\n");
+  if (part.kind !== "same" || lines.length <= context * 2 + 1) return lines;
+  return [...lines.slice(0, context), null, ...lines.slice(-context)];
+}
+
 /** Changed figures as a table, then the MDX source with added and removed lines marked in words as well as colour. */
 export function RevisionDiffView({ figures, body, from, to }: { figures: FigureChange[]; body: TextChange[]; from: number; to: number }) {
   const bodyChanged = body.some((part) => part.kind !== "same");
@@ -42,17 +51,15 @@ export function RevisionDiffView({ figures, body, from, to }: { figures: FigureC
           Text that changed
         </h2>
         {bodyChanged ? (
-          <pre className="max-h-[40rem] overflow-auto whitespace-pre-wrap break-words rounded border border-rule bg-paper-raised p-3 text-xs leading-relaxed">
+          <pre className="overflow-x-auto whitespace-pre-wrap break-words rounded border border-rule bg-paper-raised p-3 text-xs leading-relaxed">
             {body.map((part, index) => (
               // The parts are a fixed sequence computed once; their position is their identity.
               <span
                 key={index}
                 className={part.kind === "added" ? "block bg-verdigris-wash" : part.kind === "removed" ? "block bg-copper-wash line-through decoration-copper/60" : "block text-ink-faint"}
               >
-                {part.text
-                  .replace(/\n$/, "")
-                  .split("\n")
-                  .map((line) => `${part.kind === "added" ? "+ " : part.kind === "removed" ? "− " : "  "}${line}`)
+                {shownLines(part)
+                  .map((line) => (line === null ? "  …" : `${part.kind === "added" ? "+ " : part.kind === "removed" ? "− " : "  "}${line}`))
                   .join("\n")}
               </span>
             ))}

@@ -40,14 +40,6 @@ export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
         <p className="max-w-2xl font-serif text-lg text-ink-soft">{tool.summary}</p>
       </header>
       {photos.length ? <ToolPhotoGallery photos={photos} /> : null}
-      {reports.length ? (
-        <section aria-labelledby="reports-heading" className="space-y-3">
-          <h2 id="reports-heading" className="font-serif text-2xl">
-            Bench reports on this tool
-          </h2>
-          <ReportCards reports={reports} headingLevel={3} />
-        </section>
-      ) : null}
       <section aria-labelledby="ratings-heading" className="max-w-2xl">
         <h2 id="ratings-heading" className="mb-3 font-serif text-2xl">
           Ratings as the maker states them
@@ -68,6 +60,14 @@ export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
               </li>
             ))}
           </ul>
+        </section>
+      ) : null}
+      {reports.length ? (
+        <section aria-labelledby="reports-heading" className="space-y-3">
+          <h2 id="reports-heading" className="font-serif text-2xl">
+            Bench reports on this tool
+          </h2>
+          <ReportCards reports={reports} headingLevel={3} />
         </section>
       ) : null}
     </article>
