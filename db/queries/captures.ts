@@ -13,7 +13,8 @@ import {
   type InstrumentSnapshot,
 } from "@/db/schema";
 import type { StoredAnalysisOptions } from "@/lib/analysis-options";
-import { runScope, toolName, toolRatingColumns, type Viewer } from "./runs";
+import { toolName } from "./catalogue";
+import { runScope, toolRatingColumns, type Viewer } from "./runs";
 
 const captureColumns = {
   id: captures.id,

@@ -1,8 +1,11 @@
 import "server-only";
-import { and, asc, count, eq, ilike, or, type SQL } from "drizzle-orm";
+import { and, asc, count, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { makers, tools } from "@/db/schema";
 import type { CatalogueQuery } from "@/lib/validations/catalogue";
+
+/** A tool as readers name it: maker then model. Queries using it join makers. */
+export const toolName = sql<string>`${makers.name} || ' ' || ${tools.model}`;
 
 /** What the catalogue, the tool page and GET /api/tools show of a tool: its rated specification. */
 export const toolSpecColumns = {

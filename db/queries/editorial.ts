@@ -1,4 +1,5 @@
 import "server-only";
+import { toolName } from "@/db/queries/catalogue";
 import { and, asc, desc, eq, inArray, lte, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
 import {
@@ -21,7 +22,6 @@ import {
 
 // The editorial desk's reads and writes: the queue, decisions, revisions and what readers see of them.
 
-const toolName = sql<string>`${makers.name} || ' ' || ${tools.model}`;
 
 /** Every tool a report covers, in order, as one line ("A vs B"). */
 const reportToolNames = sql<string>`coalesce((select string_agg(${makers.name} || ' ' || ${tools.model}, ' vs ' order by ${reportTools.position})

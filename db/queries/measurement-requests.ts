@@ -3,11 +3,12 @@ import { and, asc, count, desc, eq, gt, inArray, isNull, ne, or, sql, type SQL }
 import { alias } from "drizzle-orm/pg-core";
 import { z } from "zod";
 import { db, type Transaction } from "@/db";
+import { toolName as catalogueToolName } from "@/db/queries/catalogue";
 import { auditLog, makers, measurementRequests, reports, requestVotes, tools, users, type RequestStatus } from "@/db/schema";
 import type { RequestListQuery } from "@/lib/validations/measurement-requests";
 
 // A catalogued tool by maker and model, else the name the reader typed.
-const toolName = sql<string>`coalesce(${makers.name} || ' ' || ${tools.model}, ${measurementRequests.proposedToolName}, 'an unnamed tool')`;
+const requestedToolName = sql<string>`coalesce(${catalogueToolName}, ${measurementRequests.proposedToolName}, 'an unnamed tool')`;
 
 function votedBy(viewerId: string | null) {
   if (!viewerId) return sql<boolean>`false`;
@@ -16,7 +17,7 @@ function votedBy(viewerId: string | null) {
 
 const summaryColumns = (viewerId: string | null) => ({
   id: measurementRequests.id,
-  toolName,
+  toolName: requestedToolName,
   toolSlug: tools.slug,
   whatToMeasure: measurementRequests.whatToMeasure,
   status: measurementRequests.status,
@@ -93,7 +94,7 @@ export type MeasurementRequestDetail = NonNullable<Awaited<ReturnType<typeof get
 
 export async function listMergedDuplicates({ targetId }: { targetId: string }) {
   return db
-    .select({ id: measurementRequests.id, toolName, whatToMeasure: measurementRequests.whatToMeasure, createdAt: measurementRequests.createdAt })
+    .select({ id: measurementRequests.id, toolName: requestedToolName, whatToMeasure: measurementRequests.whatToMeasure, createdAt: measurementRequests.createdAt })
     .from(measurementRequests)
     .leftJoin(tools, eq(tools.id, measurementRequests.toolId))
     .leftJoin(makers, eq(makers.id, tools.makerId))
@@ -104,12 +105,12 @@ export async function listMergedDuplicates({ targetId }: { targetId: string }) {
 /** Requests another may be merged into: not merged themselves and not declined. */
 export async function listMergeTargets({ excludeId }: { excludeId: string }) {
   return db
-    .select({ id: measurementRequests.id, toolName, whatToMeasure: measurementRequests.whatToMeasure, status: measurementRequests.status, voteCount: measurementRequests.voteCount })
+    .select({ id: measurementRequests.id, toolName: requestedToolName, whatToMeasure: measurementRequests.whatToMeasure, status: measurementRequests.status, voteCount: measurementRequests.voteCount })
     .from(measurementRequests)
     .leftJoin(tools, eq(tools.id, measurementRequests.toolId))
     .leftJoin(makers, eq(makers.id, tools.makerId))
     .where(and(ne(measurementRequests.id, excludeId), isNull(measurementRequests.mergedIntoId), ne(measurementRequests.status, "declined")))
-    .orderBy(asc(toolName), desc(measurementRequests.voteCount));
+    .orderBy(asc(requestedToolName), desc(measurementRequests.voteCount));
 }
 
 /** The request's public history: status changes and merges from the audit log, without who made them. */
@@ -205,7 +206,7 @@ export async function lockMeasurementRequests(tx: Transaction, { ids }: { ids: s
       mergedIntoId: measurementRequests.mergedIntoId,
       answeredByReportId: measurementRequests.answeredByReportId,
       whatToMeasure: measurementRequests.whatToMeasure,
-      toolName,
+      toolName: requestedToolName,
     })
     .from(measurementRequests)
     .leftJoin(tools, eq(tools.id, measurementRequests.toolId))

@@ -1,4 +1,5 @@
 import "server-only";
+import { toolName } from "@/db/queries/catalogue";
 import { and, asc, desc, eq, inArray, like, notInArray, or, sql, type SQL } from "drizzle-orm";
 import type { PgSelect } from "drizzle-orm/pg-core";
 import { db, type Transaction } from "@/db";
@@ -29,7 +30,6 @@ export function reportScope(viewer: Viewer): SQL | undefined {
 /** A reviewer may change a report only before it goes to the desk, or when the desk sends it back. */
 export const editableReportStatuses: readonly ReportStatus[] = ["draft", "changes_requested"];
 
-const toolName = sql<string>`${makers.name} || ' ' || ${tools.model}`;
 
 /**
  * A report's citations with the analysis, capture, run, lab and tool each one points at, in label order: the one

@@ -1,4 +1,5 @@
 import "server-only";
+import { toolName } from "@/db/queries/catalogue";
 import { and, asc, desc, eq, inArray, notInArray, sql, type SQL } from "drizzle-orm";
 import type { PgSelect } from "drizzle-orm/pg-core";
 import { db, type Transaction } from "@/db";
@@ -30,7 +31,6 @@ export function runScope(viewer: Viewer): SQL | undefined {
   return can(viewer.role, "workspace:edit-any") ? undefined : eq(testRuns.reviewerId, viewer.id);
 }
 
-export const toolName = sql<string>`${makers.name} || ' ' || ${tools.model}`;
 
 /** What verdicts need of a tool: its ratings as the maker states them. */
 export const toolRatingColumns = {

@@ -9,16 +9,13 @@ import { demoPassword, demoPeople } from "@/db/seeds/people-and-catalogue-data";
 import { analyses, reports } from "@/db/schema";
 import type { StoredAnalysisOptions } from "@/lib/analysis-options";
 import { analyzeCapture } from "@/lib/bench/analysis";
-import { launchBrowser, signIn, url, type E2eBrowser } from "../support/e2e";
+import { launchBrowser, signIn, url, visible, type E2eBrowser } from "../support/e2e";
 
 const reviewer = demoPeople.find((person) => person.role === "reviewer")!;
 const fixture = path.join(import.meta.dirname, "../fixtures/captures/orrery-orm42-hot-air.csv");
 const mark = randomUUID().slice(0, 8);
 const serial = `E2E-${mark}`;
 
-async function visible(page: Page, text: string | RegExp, timeout = 20_000) {
-  await expect.poll(() => page.getByText(text).first().isVisible(), { timeout }).toBe(true);
-}
 
 /** The number at a dotted path of the analysis object, as the page's data-figure attributes name them. */
 function at(result: unknown, dotted: string): unknown {

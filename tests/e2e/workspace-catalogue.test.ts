@@ -3,15 +3,12 @@ import type { Page } from "playwright-core";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoPassword, demoPeople } from "@/db/seeds/people-and-catalogue-data";
-import { launchBrowser, signIn, url, type E2eBrowser } from "../support/e2e";
+import { launchBrowser, signIn, url, visible, type E2eBrowser } from "../support/e2e";
 
 const reviewer = demoPeople.find((person) => person.role === "reviewer")!;
 const reader = demoPeople.find((person) => person.role === "reader")!;
 const mark = randomUUID().slice(0, 6);
 
-async function visible(page: Page, text: string | RegExp) {
-  await expect.poll(() => page.getByText(text).first().isVisible(), { timeout: 20_000 }).toBe(true);
-}
 
 describe("a reviewer fills the workspace catalogue", () => {
   let browser: E2eBrowser;

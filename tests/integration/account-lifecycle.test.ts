@@ -11,16 +11,12 @@ import { idleActionState } from "@/lib/action-state";
 import { enqueueMail } from "@/lib/outbox";
 import { createAccount } from "../support/factories";
 import { actAs, authMock } from "../support/session-mock";
+import { form } from "../support/actions";
 
 vi.mock("@/lib/auth", async () => (await import("../support/session-mock")).authMock);
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
 vi.mock("@/lib/jobs", () => ({ requestMailDelivery: vi.fn(async () => undefined) }));
 
-function form(fields: Record<string, string>): FormData {
-  const data = new FormData();
-  for (const [name, value] of Object.entries(fields)) data.append(name, value);
-  return data;
-}
 
 async function auditEntriesAbout(subjectId: string) {
   return db.select({ action: auditLog.action, actorId: auditLog.actorId, details: auditLog.details }).from(auditLog).where(eq(auditLog.subjectId, subjectId));

@@ -14,15 +14,11 @@ import { isSignInThrottled, recordSignInAttempt, signInThrottle } from "@/lib/si
 import { createAccount } from "../support/factories";
 import { waitForMessage } from "../support/mail";
 import { actAs, authMock } from "../support/session-mock";
+import { form } from "../support/actions";
 
 vi.mock("@/lib/auth", async () => (await import("../support/session-mock")).authMock);
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
 
-function form(fields: Record<string, string | Blob>): FormData {
-  const data = new FormData();
-  for (const [name, value] of Object.entries(fields)) data.append(name, value);
-  return data;
-}
 
 async function expectRedirect(promise: Promise<unknown>, location: string) {
   await expect(promise).rejects.toMatchObject({ digest: expect.stringContaining(location) });

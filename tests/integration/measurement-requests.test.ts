@@ -11,6 +11,7 @@ import { requestLimits } from "@/lib/validations/measurement-requests";
 import { createAccount } from "../support/factories";
 import { listMessages, waitForMessage } from "../support/mail";
 import { actAs } from "../support/session-mock";
+import { form } from "../support/actions";
 
 vi.mock("@/lib/auth", async () => (await import("../support/session-mock")).authMock);
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
@@ -18,11 +19,6 @@ vi.mock("@/lib/jobs", () => ({ requestMailDelivery: vi.fn(async () => undefined)
 
 type Account = Awaited<ReturnType<typeof createAccount>>;
 
-function form(fields: Record<string, string>): FormData {
-  const data = new FormData();
-  for (const [name, value] of Object.entries(fields)) data.append(name, value);
-  return data;
-}
 
 const asking = {
   whatToMeasure: "Real power at the highest setpoint on 230 V.",

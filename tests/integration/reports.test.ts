@@ -19,17 +19,13 @@ import { statObject } from "@/lib/object-storage";
 import { createAccount } from "../support/factories";
 import { analyseFixtureCapture, createRun, createTool } from "../support/report-fixtures";
 import { actAs } from "../support/session-mock";
+import { form } from "../support/actions";
 
 vi.mock("@/lib/auth", async () => (await import("../support/session-mock")).authMock);
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
 
 type Account = Awaited<ReturnType<typeof createAccount>>;
 
-function form(fields: Record<string, string | Blob>): FormData {
-  const data = new FormData();
-  for (const [name, value] of Object.entries(fields)) data.append(name, value);
-  return data;
-}
 
 /** createReport answers with a redirect to the new report's page; the id is read from where it points. */
 async function newReport(fields: Record<string, string>): Promise<string> {

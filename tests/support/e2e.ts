@@ -2,6 +2,7 @@ import { mkdtemp, rm } from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { expect } from "vitest";
 
 // Not BASE_URL: vitest fills process.env.BASE_URL with Vite's public base path ("/").
 export const BASE_URL = (process.env.E2E_BASE_URL ?? "http://localhost:3100").replace(/\/$/, "");
@@ -64,4 +65,9 @@ export async function signIn(page: Page, email: string, password: string): Promi
     page.waitForURL((current) => !current.pathname.startsWith("/sign-in"), { timeout: 15_000 }),
     page.getByRole("button", { name: "Sign in" }).click(),
   ]);
+}
+
+/** Waits until the first element with this text is visible. */
+export async function visible(page: Page, text: string | RegExp, timeout = 20_000): Promise<void> {
+  await expect.poll(() => page.getByText(text).first().isVisible(), { timeout }).toBe(true);
 }
