@@ -5,7 +5,7 @@ import { claimAnalysis, completeAnalysis, failAnalysis } from "@/db/queries/capt
 import { insertMeasurements } from "@/db/queries/runs";
 import type { DisplaySeries } from "@/db/schema";
 import type { StoredAnalysisOptions } from "@/lib/analysis-options";
-import { analysisOptionsSchema, analyzeCapture } from "@/lib/bench/analysis";
+import { analyzeSamples, readCaptureForAnalysis } from "@/lib/bench/analysis";
 import { CaptureError, readCapture, type CaptureData } from "@/lib/bench/capture-csv";
 import { halfCycleSeries, thinSeries, waveformEnvelope } from "@/lib/bench/display-series";
 import type { AnalyseCaptureJob } from "@/lib/jobs";
@@ -37,21 +37,13 @@ export type AnalysisOutcome = { analysisVersion: string; result: object; display
 
 async function analyseWaveform(
   options: Extract<StoredAnalysisOptions, { kind: "waveform" }>,
-  source: () => CaptureData,
+  data: CaptureData,
   sizeBytes: number,
 ): Promise<AnalysisOutcome> {
-  // The same call as `npm run analyze -- FILE --json`, so the stored result is the CLI's object for the same file.
-  const result = await analyzeCapture({ data: source(), sizeBytes }, options.analysis);
-  // A second pass for the charts: analyzeCapture keeps no samples, and re-reading costs far less than the analysis.
-  const parsed = analysisOptionsSchema.parse(options.analysis);
-  const samples = await readCapture(source(), {
-    current: parsed.current,
-    voltage: parsed.voltage,
-    temperature: null,
-    time: parsed.time,
-    sampleIntervalSeconds: parsed.sampleIntervalSeconds,
-    sizeHintBytes: sizeBytes,
-  });
+  // analyzeCapture split in its two halves, so the samples read once also feed the charts: the stored result is
+  // still the CLI's object for the same file.
+  const samples = await readCaptureForAnalysis({ data, sizeBytes }, options.analysis);
+  const result = analyzeSamples(samples, options.analysis);
   const current = samples.current as Float64Array;
   return {
     analysisVersion: result.analysisVersion,
@@ -66,11 +58,11 @@ async function analyseWaveform(
 
 async function analyseHeatUpLog(
   options: Extract<StoredAnalysisOptions, { kind: "heat_up_log" }>,
-  source: () => CaptureData,
+  data: CaptureData,
   sizeBytes: number,
 ): Promise<AnalysisOutcome> {
   const { heatUp } = options;
-  const capture = await readCapture(source(), {
+  const capture = await readCapture(data, {
     current: null,
     voltage: null,
     temperature: heatUp.temperature,
@@ -111,8 +103,8 @@ export async function analyseStoredCapture({
   objectKey: string;
   sizeBytes: number;
 }): Promise<AnalysisOutcome> {
-  const source = () => storedChunks(objectKey);
-  return options.kind === "waveform" ? analyseWaveform(options, source, sizeBytes) : analyseHeatUpLog(options, source, sizeBytes);
+  const data = storedChunks(objectKey);
+  return options.kind === "waveform" ? analyseWaveform(options, data, sizeBytes) : analyseHeatUpLog(options, data, sizeBytes);
 }
 
 /**

@@ -144,6 +144,11 @@ function nominalFrequencyFor(options: ParsedOptions): number {
 
 /** Reads a capture (a file, or bytes and chunks from storage) and analyses it. */
 export async function analyzeCapture(source: CaptureSource, options: AnalysisOptions, observer?: StageObserver): Promise<CaptureAnalysis> {
+  return analyzeSamples(await readCaptureForAnalysis(source, options, observer), options, observer);
+}
+
+/** The reading half of analyzeCapture, for callers that need the samples too (the worker draws charts from them). */
+export async function readCaptureForAnalysis(source: CaptureSource, options: AnalysisOptions, observer?: StageObserver): Promise<Capture> {
   const parsed = analysisOptionsSchema.parse(options);
   const nominalHz = nominalFrequencyFor(parsed);
   const readOptions = {
@@ -161,7 +166,7 @@ export async function analyzeCapture(source: CaptureSource, options: AnalysisOpt
       ? await readCaptureFile(source.path, readOptions)
       : await readCapture(source.data, { ...readOptions, sizeHintBytes: source.sizeBytes });
   observer?.("read", performance.now() - started);
-  return analyzeSamples(capture, parsed, observer);
+  return capture;
 }
 
 /** The analysis proper, on samples already read (synthetic waveforms in tests come in here too). */
