@@ -1,4 +1,4 @@
-import { timestamp, uuid } from "drizzle-orm/pg-core";
+import { customType, timestamp, uuid } from "drizzle-orm/pg-core";
 
 // Every table carries the same identity and bookkeeping columns.
 export const rowIdentity = {
@@ -9,3 +9,10 @@ export const rowIdentity = {
     .defaultNow()
     .$onUpdate(() => new Date()),
 };
+
+/** PostgreSQL's full-text document type; Drizzle has no builder of its own for it. Read back as its text form. */
+export const tsvector = customType<{ data: string }>({
+  dataType() {
+    return "tsvector";
+  },
+});

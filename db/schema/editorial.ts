@@ -1,8 +1,8 @@
-import { relations } from "drizzle-orm";
+import { relations, sql, type SQL } from "drizzle-orm";
 import { index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { ReportEmbedSources } from "@/lib/report-embeds";
 import type { InstrumentSnapshot, RunConditions, TestedUnit } from "./bench";
-import { rowIdentity } from "./columns";
+import { rowIdentity, tsvector } from "./columns";
 import { users } from "./people";
 import { reports } from "./reports";
 
@@ -33,6 +33,19 @@ export type FrozenReportContent = ReportEmbedSources & {
   runs: FrozenRun[];
 };
 
+/**
+ * A revision's MDX body as words a reader would search for: component tags, link targets and Markdown marks become
+ * spaces. The search index and the search page's snippets both read the body through this, so a snippet shows the
+ * words the index matched. It also drops the two private-use characters the snippets mark matches with.
+ */
+export function searchableBodyText(body: SQL): SQL {
+  return sql`regexp_replace(regexp_replace(regexp_replace(regexp_replace(${body},
+    '<[A-Za-z/][^>]*>', ' ', 'g'),
+    '\\[([^]]*)\\]\\([^)]*\\)', '\\1', 'g'),
+    '[#*_\`>~|\\uE000\\uE001]+', ' ', 'g'),
+    '\\s+', ' ', 'g')`;
+}
+
 export const reportRevisions = pgTable(
   "report_revisions",
   {
@@ -52,8 +65,22 @@ export const reportRevisions = pgTable(
     publishedAt: timestamp("published_at", { withTimezone: true }),
     proposedById: uuid("proposed_by_id").references(() => users.id, { onDelete: "set null" }),
     approvedById: uuid("approved_by_id").references(() => users.id, { onDelete: "set null" }),
+    /**
+     * What full-text search matches: the frozen title (weight A), the tools' names (B) and the body (C), English
+     * stemming. Every revision has one; the search query limits matches to each report's current published revision.
+     */
+    searchVector: tsvector("search_vector")
+      .notNull()
+      .generatedAlwaysAs(
+        (): SQL => sql`setweight(to_tsvector('english'::regconfig, coalesce(content->>'title', '')), 'A')
+          || setweight(to_tsvector('english'::regconfig, jsonb_path_query_array(content, '$.tools[*].name')), 'B')
+          || setweight(to_tsvector('english'::regconfig, ${searchableBodyText(sql.raw("body_mdx"))}), 'C')`,
+      ),
   },
-  (table) => [uniqueIndex("report_revisions_number_unique").on(table.reportId, table.number)],
+  (table) => [
+    uniqueIndex("report_revisions_number_unique").on(table.reportId, table.number),
+    index("report_revisions_search_idx").using("gin", table.searchVector),
+  ],
 );
 
 export const decisionKindEnum = pgEnum("decision_kind", ["approve", "schedule", "send_back", "reject_revision", "retract"]);
