@@ -1,5 +1,6 @@
 import { closeDatabase, db } from "@/db";
 import { seedCommunity } from "./seeds/community";
+import { seedComparisons } from "./seeds/comparisons";
 import { seedBenchRuns } from "./seeds/bench-runs";
 import { seedEditorial } from "./seeds/editorial";
 import { seedPeopleAndCatalogue } from "./seeds/people-and-catalogue";
@@ -16,6 +17,8 @@ const seeders = [
   { name: "published reports, corrections and comments", run: seedEditorial },
   // After the reports: a measured request links the published report that answers it.
   { name: "measurement requests and e-mail settings", run: seedCommunity },
+  // A second tool from the Wrenford bench, published, so two tools compare on equal terms.
+  { name: "a published run for comparisons", run: seedComparisons },
 ];
 
 try {

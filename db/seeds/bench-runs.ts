@@ -26,7 +26,8 @@ async function single<T>(rows: Promise<T[]>, missing: string): Promise<T> {
   return row;
 }
 
-async function seedRun(tx: Transaction, demo: DemoRun, now: Date, storageReachable: { value: boolean }) {
+/** One demo run with its readings, captures and analyses; upserts by the run's fixed ids. */
+export async function seedRun(tx: Transaction, demo: DemoRun, now: Date, storageReachable: { value: boolean }) {
   const lab = await single(tx.select({ id: labs.id }).from(labs).where(eq(labs.slug, demo.labSlug)), `lab ${demo.labSlug} missing`);
   const reviewer = await single(tx.select({ id: users.id }).from(users).where(eq(users.email, demo.reviewerEmail)), `${demo.reviewerEmail} missing`);
   const tool = await single(
