@@ -89,6 +89,8 @@ export const pageAccess = {
   "/workspace/reports/new": "workspace:use",
   "/workspace/reports/[id]": "workspace:use",
   "/workspace/reports/[id]/view": "workspace:use",
+  // readers: compare
+  "/compare": "public",
 } as const satisfies Record<string, Access>;
 
 /** Route handlers by pattern and method. */
