@@ -60,6 +60,8 @@ const samplePaths: Record<keyof typeof pageAccess, string> = {
   "/workspace/runs/new": "/workspace/runs/new",
   "/workspace/runs/[id]": `/workspace/runs/${demoRuns[0]!.id}`,
   "/workspace/runs/[id]/captures/[captureId]": `/workspace/runs/${demoRuns[0]!.id}/captures/${demoRuns[0]!.captures[0]!.id}`,
+  // readers: compare (the two demo labs' published tools)
+  "/compare": `/compare?a=${demoRuns[0]!.toolSlug}&b=${demoRuns[1]!.toolSlug}`,
 };
 
 function demoAccount(role: Role) {
