@@ -36,8 +36,12 @@ export type PublishedRevisionSource<Content = FrozenReportContent> = {
   content: Content;
 };
 
-/** What the result rows need of the frozen content: no analysis results or display series, which are most of its bytes. */
-export type FrozenResultContent = Pick<FrozenReportContent, "title" | "tools" | "measurements" | "runs"> & {
+/**
+ * What the result rows need of the frozen content: no analysis results, display series or instrument snapshots, which
+ * are nearly all of its bytes.
+ */
+export type FrozenResultContent = Pick<FrozenReportContent, "title" | "tools" | "measurements"> & {
+  runs: Omit<FrozenRun, "instruments" | "unit">[];
   analyses: Omit<FrozenReportContent["analyses"][number], "result" | "displaySeries">[];
 };
 
@@ -84,7 +88,7 @@ function reportRef({ report, revision, content }: PublishedRevisionSource<{ titl
   };
 }
 
-function runContext(run: FrozenRun): PublishedRunContext {
+function runContext(run: FrozenResultContent["runs"][number]): PublishedRunContext {
   return { id: run.id, testedOn: run.testedOn, labName: run.labName, protocol: { name: run.protocol.name, version: run.protocol.version }, conditions: run.conditions };
 }
 
