@@ -7,10 +7,13 @@ import {
   getPaginationRowModel,
   getSortedRowModel,
   useReactTable,
+  type Column,
   type ColumnDef,
+  type PaginationState,
   type RowData,
   type SortDirection,
   type SortingState,
+  type Updater,
 } from "@tanstack/react-table";
 import Link from "next/link";
 import { useId, useState, type ReactNode } from "react";
@@ -33,8 +36,24 @@ const ariaSort: Record<SortDirection | "none", "ascending" | "descending" | "non
 };
 
 /**
+ * Sorting and paging done elsewhere (a route handler): the table shows the rows it is given and reports what the
+ * reader asked for. Filters then live outside the table, in the page's own form.
+ */
+export type ServerSideTable = {
+  sorting: SortingState;
+  onSortingChange: (sorting: SortingState) => void;
+  pageIndex: number;
+  pageSize: number;
+  rowCount: number;
+  onPageChange: (pageIndex: number) => void;
+  /** While new rows are on their way: the table is marked busy for assistive technology. */
+  busy?: boolean;
+};
+
+/**
  * A sortable, filterable, paged table. Columns are TanStack column definitions, so a page that wants links or badges in
  * its cells declares them in a small client component of its own (functions cannot cross from a server component).
+ * With `serverSide` the rows are one page from a server, sorted there, and the text filter is left out.
  */
 export function DataTable<Row>({
   caption,
@@ -49,6 +68,9 @@ export function DataTable<Row>({
   minWidth = "40rem",
   newItem,
   actions,
+  serverSide,
+  getRowId,
+  rowNoun = ["row", "rows"],
 }: {
   caption: string;
   captionVisible?: boolean;
@@ -66,6 +88,10 @@ export function DataTable<Row>({
   newItem?: { href: string; label: string };
   /** Anything else beside the filter. */
   actions?: ReactNode;
+  serverSide?: ServerSideTable;
+  /** A stable key per row, so rows fetched anew keep their identity. */
+  getRowId?: (row: Row) => string;
+  rowNoun?: [singular: string, plural: string];
 }) {
   const filterId = useId();
   const [sorting, setSorting] = useState<SortingState>(initialSorting);
@@ -73,57 +99,81 @@ export function DataTable<Row>({
   const table = useReactTable({
     data,
     columns,
-    state: { sorting, globalFilter },
-    initialState: { pagination: { pageIndex: 0, pageSize } },
-    onSortingChange: setSorting,
-    onGlobalFilterChange: setGlobalFilter,
-    globalFilterFn: "includesString",
-    // Text typed into the filter matches every column that shows text or numbers, not just the first row's types.
-    getColumnCanGlobalFilter: (column) => column.columnDef.enableGlobalFilter !== false,
+    getRowId,
     getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-    getFilteredRowModel: getFilteredRowModel(),
-    getPaginationRowModel: getPaginationRowModel(),
-    // A new filter should show its first matches, not an empty page further on.
-    autoResetPageIndex: true,
+    ...(serverSide
+      ? {
+          state: { sorting: serverSide.sorting, pagination: { pageIndex: serverSide.pageIndex, pageSize: serverSide.pageSize } },
+          manualSorting: true,
+          manualPagination: true,
+          rowCount: serverSide.rowCount,
+          // A server sorts by one column at a time and always by something, so a sorted column only turns over.
+          enableSortingRemoval: false,
+          enableMultiSort: false,
+          sortDescFirst: false,
+          onSortingChange: (updater: Updater<SortingState>) =>
+            serverSide.onSortingChange(typeof updater === "function" ? updater(serverSide.sorting) : updater),
+          onPaginationChange: (updater: Updater<PaginationState>) => {
+            const current = { pageIndex: serverSide.pageIndex, pageSize: serverSide.pageSize };
+            serverSide.onPageChange((typeof updater === "function" ? updater(current) : updater).pageIndex);
+          },
+        }
+      : {
+          state: { sorting, globalFilter },
+          initialState: { pagination: { pageIndex: 0, pageSize } },
+          onSortingChange: setSorting,
+          onGlobalFilterChange: setGlobalFilter,
+          globalFilterFn: "includesString" as const,
+          // Text typed into the filter matches every column that shows text or numbers, not just the first row's types.
+          getColumnCanGlobalFilter: (column: Column<Row>) => column.columnDef.enableGlobalFilter !== false,
+          getSortedRowModel: getSortedRowModel(),
+          getFilteredRowModel: getFilteredRowModel(),
+          getPaginationRowModel: getPaginationRowModel(),
+          // A new filter should show its first matches, not an empty page further on.
+          autoResetPageIndex: true,
+        }),
   });
 
   const rows = table.getRowModel().rows;
-  const matching = table.getFilteredRowModel().rows.length;
+  const matching = serverSide ? serverSide.rowCount : table.getFilteredRowModel().rows.length;
   const pageCount = Math.max(1, table.getPageCount());
   const columnCount = table.getVisibleLeafColumns().length;
 
   return (
     <div className="space-y-3">
-      <div className="flex flex-wrap items-end justify-between gap-3">
-        <div className="flex flex-col gap-1">
-          <label htmlFor={filterId} className="text-sm font-semibold">
-            {filterLabel}
-          </label>
-          <input
-            id={filterId}
-            type="search"
-            value={globalFilter}
-            onChange={(event) => setGlobalFilter(event.target.value)}
-            placeholder={filterPlaceholder}
-            className="w-64 max-w-full rounded border border-rule bg-paper-raised px-3 py-2"
-          />
+      {serverSide && !newItem && !actions ? null : (
+        <div className="flex flex-wrap items-end justify-between gap-3">
+          {serverSide ? null : (
+            <div className="flex flex-col gap-1">
+              <label htmlFor={filterId} className="text-sm font-semibold">
+                {filterLabel}
+              </label>
+              <input
+                id={filterId}
+                type="search"
+                value={globalFilter}
+                onChange={(event) => setGlobalFilter(event.target.value)}
+                placeholder={filterPlaceholder}
+                className="w-64 max-w-full rounded border border-rule bg-paper-raised px-3 py-2"
+              />
+            </div>
+          )}
+          {newItem || actions ? (
+            <div className="flex flex-wrap gap-2">
+              {newItem ? (
+                <Link href={newItem.href} className="rounded bg-ink px-4 py-2 font-semibold text-paper-raised hover:bg-ink-soft">
+                  {newItem.label}
+                </Link>
+              ) : null}
+              {actions}
+            </div>
+          ) : null}
         </div>
-        {newItem || actions ? (
-          <div className="flex flex-wrap gap-2">
-            {newItem ? (
-              <Link href={newItem.href} className="rounded bg-ink px-4 py-2 font-semibold text-paper-raised hover:bg-ink-soft">
-                {newItem.label}
-              </Link>
-            ) : null}
-            {actions}
-          </div>
-        ) : null}
-      </div>
+      )}
 
       {/* relative: screen-reader-only text in cells is positioned absolutely and must scroll with the table, not widen the page. */}
       <div className="relative overflow-x-auto rounded border border-rule bg-paper-raised">
-        <table className="w-full text-left text-sm" style={{ minWidth }}>
+        <table className="w-full text-left text-sm" style={{ minWidth }} aria-busy={serverSide?.busy || undefined}>
           <caption className={captionVisible ? "px-3 py-2 text-left font-serif text-lg" : "sr-only"}>{caption}</caption>
           <thead className="bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft">
             {table.getHeaderGroups().map((group) => (
@@ -201,7 +251,7 @@ export function DataTable<Row>({
           ← Previous
         </button>
         <span className="text-ink-faint" aria-live="polite">
-          Page {table.getState().pagination.pageIndex + 1} of {pageCount} · {matching} {matching === 1 ? "row" : "rows"}
+          Page {table.getState().pagination.pageIndex + 1} of {pageCount} · {matching} {matching === 1 ? rowNoun[0] : rowNoun[1]}
         </span>
         <button
           type="button"
