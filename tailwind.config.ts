@@ -8,7 +8,7 @@ const config = {
     extend: {
       colors: {
         paper: { DEFAULT: "#f6f3ec", raised: "#fffdf8", sunk: "#ebe6da" },
-        ink: { DEFAULT: "#1f232b", soft: "#454b57", faint: "#6b7180" },
+        ink: { DEFAULT: "#1f232b", soft: "#454b57", faint: "#5c6270" },
         rule: "#d6cfbf",
         copper: { DEFAULT: "#a5481f", deep: "#7c3414", wash: "#f3e1d4" },
         verdigris: { DEFAULT: "#2c6e68", deep: "#1d4f4a", wash: "#dcebe7" },

@@ -1,3 +1,4 @@
+import { TableScroller } from "@/components/ui/table-scroller";
 import type { FigureChange, TextChange } from "@/lib/revision-diff";
 
 const context = 2;
@@ -19,7 +20,7 @@ export function RevisionDiffView({ figures, body, from, to }: { figures: FigureC
           Figures that changed
         </h2>
         {figures.length ? (
-          <div className="overflow-x-auto rounded border border-rule bg-paper-raised">
+          <TableScroller label={`Figures in revision ${from} and revision ${to}`} className="rounded border border-rule bg-paper-raised">
             <table className="w-full min-w-[40rem] text-left text-sm">
               <caption className="sr-only">
                 Figures in revision {from} and revision {to}
@@ -41,7 +42,7 @@ export function RevisionDiffView({ figures, body, from, to }: { figures: FigureC
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableScroller>
         ) : (
           <p className="text-ink-soft">No figure or verdict changed.</p>
         )}

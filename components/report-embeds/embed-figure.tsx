@@ -1,4 +1,5 @@
 import type { ReactNode } from "react";
+import { TableScroller } from "@/components/ui/table-scroller";
 
 /**
  * The frame every embedded figure shares: a title and where the data came from, the drawing (hidden from screen
@@ -29,7 +30,9 @@ export function EmbedFigure({
       {table ? (
         <details className="mt-2 text-sm">
           <summary className="cursor-pointer font-semibold text-ink">Data as a table</summary>
-          <div className="mt-2 overflow-x-auto">{table}</div>
+          <TableScroller label={`${title}: data`} className="mt-2">
+            {table}
+          </TableScroller>
         </details>
       ) : null}
     </figure>

@@ -8,8 +8,10 @@ export type HarmonicBar = { order: number; amps: number; limitAmps: number | nul
 export function HarmonicPlot({ orders }: { orders: HarmonicBar[] }) {
   return (
     <div className="h-64 w-full">
+      {/* No keyboard layer: EmbedFigure hides the drawing from assistive technology and gives its figures in words, and a
+          focusable chart inside that hidden part would take keyboard focus to something no screen reader announces. */}
       <ResponsiveContainer width="100%" height="100%">
-        <ComposedChart data={orders} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+        <ComposedChart data={orders} accessibilityLayer={false} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
           <CartesianGrid stroke="#d6cfbf" strokeDasharray="3 3" />
           <XAxis dataKey="order" fontSize={11} />
           <YAxis fontSize={11} width={52} tickFormatter={(value: number) => `${value} A`} />

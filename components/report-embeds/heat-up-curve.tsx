@@ -19,8 +19,10 @@ export function HeatUpPlot({
   const data = timeS.map((t, index) => ({ t, temperature: temperatureC[index] }));
   return (
     <div className="h-64 w-full">
+      {/* No keyboard layer: EmbedFigure hides the drawing from assistive technology and gives its figures in words, and a
+          focusable chart inside that hidden part would take keyboard focus to something no screen reader announces. */}
       <ResponsiveContainer width="100%" height="100%">
-        <LineChart data={data} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+        <LineChart data={data} accessibilityLayer={false} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
           <CartesianGrid stroke="#d6cfbf" strokeDasharray="3 3" />
           <XAxis dataKey="t" type="number" domain={["dataMin", "dataMax"]} tickFormatter={(value: number) => `${Math.round(value)} s`} fontSize={11} />
           <YAxis fontSize={11} width={52} tickFormatter={(value: number) => `${value} °C`} domain={["auto", "auto"]} />

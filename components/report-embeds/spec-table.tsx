@@ -1,3 +1,4 @@
+import { TableScroller } from "@/components/ui/table-scroller";
 import { formatFrequencies, formatRange, formatRatedVoltage } from "@/lib/format";
 import type { EmbedMeasurement, EmbedTool } from "@/lib/report-embeds";
 import { embedHeadClass } from "./embed-figure";
@@ -24,7 +25,7 @@ function ratedFigure(tool: EmbedTool, measurement: EmbedMeasurement): string {
 /** The maker's ratings beside what the cited runs measured, each measurement with its uncertainty and verdict. */
 export function SpecTable({ tool }: { tool: EmbedTool }) {
   return (
-    <div className="not-prose my-6 overflow-x-auto rounded border border-rule bg-paper-raised font-sans">
+    <TableScroller label={`Rated against measured: ${tool.name}`} className="not-prose my-6 rounded border border-rule bg-paper-raised font-sans">
       <table className="w-full min-w-[36rem] text-left text-sm">
         <caption className="px-3 py-2 text-left font-serif text-lg text-ink">
           Rated against measured: {tool.name}
@@ -60,6 +61,6 @@ export function SpecTable({ tool }: { tool: EmbedTool }) {
           ) : null}
         </tbody>
       </table>
-    </div>
+    </TableScroller>
   );
 }

@@ -1,3 +1,4 @@
+import { TableScroller } from "@/components/ui/table-scroller";
 import type { VerdictRow } from "@/lib/report-embeds";
 import { embedHeadClass } from "./embed-figure";
 import { decimalsForUncertainty, formatLimits, formatMeasured, formatNumber } from "./figure-format";
@@ -8,7 +9,7 @@ const ruleLabels = { simple: "simple acceptance", guarded: "guarded acceptance (
 /** Each rating judged, with every number behind the verdict: usable on run pages as well as in reports. */
 export function VerdictTable({ rows, caption }: { rows: VerdictRow[]; caption: string }) {
   return (
-    <div className="not-prose my-6 overflow-x-auto rounded border border-rule bg-paper-raised font-sans">
+    <TableScroller label={caption} className="not-prose my-6 rounded border border-rule bg-paper-raised font-sans">
       <table className="w-full min-w-[48rem] text-left text-sm">
         <caption className="px-3 py-2 text-left font-serif text-lg text-ink">{caption}</caption>
         <thead className={embedHeadClass}>
@@ -59,6 +60,6 @@ export function VerdictTable({ rows, caption }: { rows: VerdictRow[]; caption: s
           ) : null}
         </tbody>
       </table>
-    </div>
+    </TableScroller>
   );
 }
