@@ -6,11 +6,9 @@ import type { EmbedAnalysis, ReportEmbeds } from "@/lib/report-embeds";
 import { ConductionStrip, conductionRuns } from "./conduction-strip";
 import { EmbedFigure, embedHeadClass, embedTableClass } from "./embed-figure";
 import { formatNumber } from "./figure-format";
-import { HarmonicPlot } from "./harmonic-chart";
-import { HeatUpPlot } from "./heat-up-curve";
+import { LazyHarmonicPlot, LazyHeatUpPlot, LazyWaveformPlot } from "./lazy-plots";
 import { SpecTable } from "./spec-table";
 import { VerdictTable } from "./verdict-table";
-import { WaveformPlot } from "./waveform-chart";
 
 // Binds the components a report's MDX may use to that report's cited data. Shared by the saved report (server) and
 // the live preview (browser), so both show the same thing for the same text.
@@ -60,7 +58,7 @@ export function embedComponents(embeds: ReportEmbeds): EmbedComponents {
               figures.power ? `; real power ${formatNumber(figures.power.real)} W, power factor ${formatNumber(figures.power.factor, 3)}` : ""
             }. The chart shows each stretch's minimum and maximum, downsampled for display.`}
           >
-            <WaveformPlot timeS={series.timeS} current={series.current} voltage={series.voltage} />
+            <LazyWaveformPlot timeS={series.timeS} current={series.current} voltage={series.voltage} />
           </EmbedFigure>
         );
       }),
@@ -132,7 +130,7 @@ export function embedComponents(embeds: ReportEmbeds): EmbedComponents {
               </table>
             }
           >
-            <HarmonicPlot orders={harmonics.orders.map(({ order, amps, limitAmps }) => ({ order, amps, limitAmps }))} />
+            <LazyHarmonicPlot orders={harmonics.orders.map(({ order, amps, limitAmps }) => ({ order, amps, limitAmps }))} />
           </EmbedFigure>
         );
       }),
@@ -155,7 +153,7 @@ export function embedComponents(embeds: ReportEmbeds): EmbedComponents {
               4,
             )} °C with a spread (s) of ${formatNumber(figures.steadyState.standardDeviation, 2)} °C.`}
           >
-            <HeatUpPlot
+            <LazyHeatUpPlot
               timeS={series.timeS}
               temperatureC={series.temperatureC}
               setpointC={series.setpointC ?? figures.setpointC}
