@@ -1,0 +1,21 @@
+import "server-only";
+import { unstable_cache } from "next/cache";
+import { listPublishedAnalysesForTool, listPublishedResultsForTool } from "@/db/queries/published-results";
+import { chooseComparisonSide, type ComparisonSide } from "@/lib/comparison";
+import { publishedListsMaxAgeSeconds, publishedReportsCacheTag } from "@/lib/editorial";
+
+/**
+ * What the compare page shows of one tool, cached per tool: only a publication, correction or retraction changes it,
+ * and the desk's actions clear the published-reports tag on each. The age limit covers scheduled revisions, which the
+ * worker makes live from a process that cannot reach this cache.
+ */
+export function loadComparisonSide(toolSlug: string): Promise<ComparisonSide> {
+  return unstable_cache(
+    async () => {
+      const [results, analyses] = await Promise.all([listPublishedResultsForTool({ toolSlug }), listPublishedAnalysesForTool({ toolSlug })]);
+      return chooseComparisonSide({ results, analyses });
+    },
+    ["comparison-side", toolSlug],
+    { tags: [publishedReportsCacheTag], revalidate: publishedListsMaxAgeSeconds },
+  )();
+}
