@@ -1,0 +1,151 @@
+import { randomUUID } from "node:crypto";
+import { and, eq, inArray } from "drizzle-orm";
+import { beforeAll, describe, expect, it } from "vitest";
+import { db } from "@/db";
+import { listPublishedAnalysesForTool, listPublishedResultsForReport, listPublishedResultsForTool } from "@/db/queries/published-results";
+import { reportRevisions, reports, reportTools, tools, type FrozenReportContent, type ReportStatus, type RevisionStatus } from "@/db/schema";
+import { measurementKindInfo } from "@/lib/measurement-kinds";
+import { createAccount } from "../support/factories";
+import { frozenAnalysis, frozenContent, frozenMeasurement, frozenTool } from "../support/frozen-content";
+import { createTool } from "../support/report-fixtures";
+
+// The demo seed publishes the Aeris report through the desk and corrects it in a second revision; readers must see
+// the second revision's figures only. The tool made here carries one report in every state readers must or must not see.
+
+const seededSlug = "quillfern-aeris-720-measured";
+
+async function currentContent(slug: string) {
+  const [row] = await db
+    .select({ number: reportRevisions.number, content: reportRevisions.content, status: reports.status })
+    .from(reports)
+    .innerJoin(reportRevisions, eq(reportRevisions.id, reports.publishedRevisionId))
+    .where(eq(reports.slug, slug));
+  if (!row) throw new Error(`${slug} is not seeded; run npm run db:seed in the test env`);
+  return row;
+}
+
+let tool: Awaited<ReturnType<typeof createTool>>;
+let authorId: string;
+
+function contentFor(value: number): FrozenReportContent {
+  const testTool = frozenTool({ id: tool.id, slug: tool.slug, name: tool.name });
+  return frozenContent({
+    title: `Report with ${value} W`,
+    tools: [testTool],
+    analyses: [frozenAnalysis({ toolId: tool.id, toolSlug: tool.slug, toolName: tool.name })],
+    measurements: [frozenMeasurement({ value })],
+  });
+}
+
+/** A report on the test tool with the given revisions (number → status and the power value its content holds). */
+async function insertReport(status: ReportStatus, revisions: { number: number; status: RevisionStatus; value: number }[], current: number | null) {
+  const slug = `results-${status}-${randomUUID().slice(0, 8)}`;
+  const [report] = await db
+    .insert(reports)
+    .values({ slug, title: slug, authorId, status, retractionReason: status === "retracted" ? "The clamp's scale was set wrong." : null })
+    .returning({ id: reports.id });
+  await db.insert(reportTools).values({ reportId: report!.id, toolId: tool.id, position: 0 });
+  const inserted = await db
+    .insert(reportRevisions)
+    .values(
+      revisions.map((revision) => ({
+        reportId: report!.id,
+        number: revision.number,
+        kind: revision.number === 1 ? ("original" as const) : ("correction" as const),
+        status: revision.status,
+        changeNote: `Revision ${revision.number}`,
+        bodyMdx: "Body.",
+        content: contentFor(revision.value),
+        publishedAt: revision.status === "published" ? new Date(`2026-12-0${revision.number}T09:00:00Z`) : null,
+      })),
+    )
+    .returning({ id: reportRevisions.id, number: reportRevisions.number });
+  const currentId = inserted.find((row) => row.number === current)?.id ?? null;
+  await db.update(reports).set({ publishedRevisionId: currentId }).where(eq(reports.id, report!.id));
+  return slug;
+}
+
+let corrected: string;
+let retracted: string;
+let waiting: string;
+
+beforeAll(async () => {
+  [tool, { id: authorId }] = await Promise.all([createTool(), createAccount({ role: "reviewer" })]);
+  corrected = await insertReport(
+    "published",
+    [
+      { number: 1, status: "published", value: 701 },
+      { number: 2, status: "published", value: 702 },
+      { number: 3, status: "pending", value: 703 },
+    ],
+    2,
+  );
+  retracted = await insertReport("retracted", [{ number: 1, status: "published", value: 711 }], 1);
+  waiting = await insertReport("submitted", [{ number: 1, status: "scheduled", value: 721 }], null);
+});
+
+describe("listPublishedResultsForReport", () => {
+  it("gives the seeded corrected report's current revision, measurement by measurement", async () => {
+    const { number, content } = await currentContent(seededSlug);
+    expect(number).toBeGreaterThan(1);
+    const rows = await listPublishedResultsForReport({ slug: seededSlug });
+    expect(rows).toHaveLength(content.measurements.length);
+    const expected = content.measurements.map((measurement) => [measurement.kind, measurement.value, measurement.unit, measurement.expandedUncertainty]);
+    expect(rows.map((row) => [row.kind, row.value, row.unit, row.expandedUncertainty])).toEqual(expect.arrayContaining(expected));
+    for (const row of rows) {
+      expect(row.report).toMatchObject({ slug: seededSlug, revisionNumber: number, retracted: false, title: content.title });
+      expect(row.quantity).toBe(measurementKindInfo[row.kind].label);
+      const run = content.runs.find((candidate) => candidate.id === row.run.id);
+      expect(row.run).toMatchObject({ testedOn: run?.testedOn, labName: run?.labName, protocol: { version: run?.protocol.version }, conditions: run?.conditions });
+    }
+    const power = rows.find((row) => row.kind === "power_input_full_demand");
+    expect(power?.verdict).toMatchObject({ rated: 720, normalizedTo: 230, rule: expect.any(String), result: expect.any(String) });
+    expect(power?.analysis?.label).toBeTruthy();
+  });
+
+  it("has nothing for a report readers cannot see", async () => {
+    expect(await listPublishedResultsForReport({ slug: waiting })).toEqual([]);
+    expect(await listPublishedResultsForReport({ slug: "no-such-report" })).toEqual([]);
+  });
+});
+
+describe("listPublishedResultsForTool", () => {
+  it("takes each readable report's current revision only, and flags the retracted one", async () => {
+    const rows = await listPublishedResultsForTool({ toolSlug: tool.slug });
+    expect(rows.map((row) => [row.report.slug, row.report.revisionNumber, row.value, row.report.retracted]).sort()).toEqual(
+      [
+        [corrected, 2, 702, false],
+        [retracted, 1, 711, true],
+      ].sort(),
+    );
+    expect(rows.find((row) => row.report.retracted)?.report.retractionReason).toBe("The clamp's scale was set wrong.");
+  });
+
+  it("lists every seeded result on the seeded tool, each from its report's current revision", async () => {
+    const [{ id: toolId } = { id: "" }] = await db.select({ id: tools.id }).from(tools).where(eq(tools.slug, "quillfern-aeris-720"));
+    const rows = await listPublishedResultsForTool({ toolSlug: "quillfern-aeris-720" });
+    const readable = await db
+      .select({ slug: reports.slug, content: reportRevisions.content })
+      .from(reports)
+      .innerJoin(reportRevisions, eq(reportRevisions.id, reports.publishedRevisionId))
+      .innerJoin(reportTools, and(eq(reportTools.reportId, reports.id), eq(reportTools.toolId, toolId)))
+      .where(inArray(reports.status, ["published", "retracted"]));
+    const expectedCount = readable.reduce((sum, { content }) => {
+      const runsOfTool = new Set(content.analyses.filter((analysis) => analysis.toolId === toolId).map((analysis) => analysis.runId));
+      return sum + content.measurements.filter((measurement) => runsOfTool.has(measurement.runId)).length;
+    }, 0);
+    expect(rows.length).toBe(expectedCount);
+    expect(rows.some((row) => row.report.slug === seededSlug)).toBe(true);
+    expect(rows.every((row) => row.tool.slug === "quillfern-aeris-720")).toBe(true);
+  });
+});
+
+describe("listPublishedAnalysesForTool", () => {
+  it("gives the cited analyses of current revisions with their figures", async () => {
+    const analyses = await listPublishedAnalysesForTool({ toolSlug: tool.slug });
+    expect(analyses.map((analysis) => analysis.report.slug).sort()).toEqual([corrected, retracted].sort());
+    const waveform = analyses.find((analysis) => analysis.captureKind === "waveform");
+    expect(waveform?.waveform?.current.rms).toBeGreaterThan(0);
+    expect(waveform?.flicker?.pst).toBe(1.72);
+  });
+});
