@@ -2,12 +2,15 @@ import type { Metadata, Viewport } from "next";
 import type { ReactNode } from "react";
 import { SafetyNotice } from "@/components/safety-notice";
 import { SiteHeader } from "@/components/site-header";
+import { serverEnv } from "@/lib/env";
+import { reportFeedTitle } from "@/lib/report-feed";
 import "./globals.css";
 
 export const metadata: Metadata = {
   title: { default: "Benchplate: measured heating tools", template: "%s · Benchplate" },
   description:
     "Independent bench tests of hot-air stations, soldering stations and heat guns: rated versus measured, with the uncertainty stated.",
+  alternates: { types: { "application/atom+xml": [{ url: `${serverEnv().APP_ORIGIN}/feed.xml`, title: reportFeedTitle }] } },
 };
 
 export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#f6f3ec" };

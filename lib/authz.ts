@@ -109,6 +109,10 @@ export const routeHandlerAccess = {
   "POST /api/reports/[id]/preview": "workspace:use",
   /** Published reports' images are public; the handler itself limits drafts to their author and editors. */
   "GET /api/report-images/[imageId]": "public",
+  // readers: open data
+  "GET /feed.xml": "public",
+  "GET /reports/[slug]/measurements.csv": "public",
+  "GET /reports/[slug]/measurements.json": "public",
 } as const satisfies Record<string, Access>;
 
 /** Server actions by "<file under app/>#<export>". */

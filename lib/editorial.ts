@@ -47,6 +47,15 @@ export function reportCacheTag(slug: string): string {
   return `report:${slug}`;
 }
 
+/** The cache tag of every list drawn from all published reports: the home page, the Atom feed, the sitemap. */
+export const publishedReportsCacheTag = "published-reports";
+
+/**
+ * How long those lists may be served from the cache at most. The desk's actions clear the tag at once, but the worker
+ * makes scheduled revisions live from another process, which cannot reach this cache.
+ */
+export const publishedListsMaxAgeSeconds = 60;
+
 /**
  * The report as it stands, frozen: its text, and every figure its body can show read from the cited analyses, their
  * measurements and the tools' ratings at this moment, with the runs' protocol, conditions and instruments.

@@ -330,7 +330,10 @@ export async function getAccountAddress(tx: Transaction, { id }: { id: string })
 
 // Readers' side. Only published and retracted reports exist for readers; a retraction keeps the page with its reason.
 
-const readableStatuses = ["published", "retracted"] as const;
+export const readableStatuses = ["published", "retracted"] as const;
+
+/** A revision's verdict results alone, so a list never loads the analyses and chart series that make up most of it. */
+export const frozenVerdictResults = sql<unknown[]>`jsonb_path_query_array(${reportRevisions.content}, '$.measurements[*].verdict.result')`;
 
 /** The few columns that change after publication; never cached, so a retraction or a new revision shows at once. */
 export async function getReadableReport({ slug }: { slug: string }) {
@@ -408,8 +411,8 @@ export async function listMakerReplies({ reportId }: { reportId: string }) {
 export type MakerReplyEntry = Awaited<ReturnType<typeof listMakerReplies>>[number];
 
 /** Published and retracted reports, newest first, with what their current revision says on the list. */
-export async function listReadableReports({ toolSlug }: { toolSlug?: string } = {}) {
-  return db
+export async function listReadableReports({ toolSlug, limit }: { toolSlug?: string; limit?: number } = {}) {
+  const query = db
     .select({
       slug: reports.slug,
       title: sql<string>`${reportRevisions.content}->>'title'`,
@@ -420,6 +423,7 @@ export async function listReadableReports({ toolSlug }: { toolSlug?: string } = 
       revisionNumber: reportRevisions.number,
       revisionKind: reportRevisions.kind,
       revisedAt: reportRevisions.publishedAt,
+      verdictResults: frozenVerdictResults,
     })
     .from(reports)
     .innerJoin(users, eq(users.id, reports.authorId))
@@ -432,7 +436,8 @@ export async function listReadableReports({ toolSlug }: { toolSlug?: string } = 
           : sql`exists (select 1 from ${reportTools} join ${tools} on ${tools.id} = ${reportTools.toolId} where ${reportTools.reportId} = ${reports.id} and ${tools.slug} = ${toolSlug})`,
       ),
     )
-    .orderBy(desc(reports.firstPublishedAt));
+    .orderBy(desc(reports.firstPublishedAt), reports.slug);
+  return limit === undefined ? query : query.limit(limit);
 }
 
 export type ReadableReportSummary = Awaited<ReturnType<typeof listReadableReports>>[number];

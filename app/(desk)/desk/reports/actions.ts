@@ -2,7 +2,7 @@
 
 import { revalidatePath, updateTag } from "next/cache";
 import { db } from "@/db";
-import { approveReport, attachMakerReply as saveMakerReply, reportCacheTag, retractReport as saveRetraction, sendBackReport as saveSendBack } from "@/lib/editorial";
+import { approveReport, attachMakerReply as saveMakerReply, publishedReportsCacheTag, reportCacheTag, retractReport as saveRetraction, sendBackReport as saveSendBack } from "@/lib/editorial";
 import { guardedAction } from "@/lib/guarded-action";
 import { formatDateTime } from "@/lib/format";
 import { wakeMailSender } from "@/lib/outbox";
@@ -11,6 +11,8 @@ import { makerReplySchema, publishReportSchema, retractReportSchema, scheduleRep
 /** Everything that shows the report: the desk, the reviewer's workspace and, once it is public, the reader pages. */
 function revalidateReportPages(reportId: string, slug: string) {
   updateTag(reportCacheTag(slug));
+  updateTag(publishedReportsCacheTag);
+  revalidatePath("/");
   revalidatePath("/desk");
   revalidatePath(`/desk/reports/${reportId}`);
   revalidatePath(`/workspace/reports/${reportId}`);
