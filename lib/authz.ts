@@ -91,6 +91,8 @@ export const pageAccess = {
   "/workspace/reports/[id]/view": "workspace:use",
   // readers: compare
   "/compare": "public",
+  // readers: catalogue and search
+  "/search": "public",
 } as const satisfies Record<string, Access>;
 
 /** Route handlers by pattern and method. */
