@@ -23,6 +23,9 @@ export async function SiteHeader() {
           <Link href="/requests" className="hover:text-copper">
             Requests
           </Link>
+          <Link href="/search" className="hover:text-copper">
+            Search
+          </Link>
           {roleLinks.map((link) => (
             <Link key={link.href} href={link.href} className="text-verdigris-deep hover:text-copper">
               {link.label}
