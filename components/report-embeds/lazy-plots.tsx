@@ -27,7 +27,7 @@ function WhenNearView({ children }: { children: ReactNode }) {
           observer.disconnect();
         }
       },
-      { rootMargin: "400px 0px" },
+      { rootMargin: "200px 0px" },
     );
     observer.observe(element);
     return () => observer.disconnect();
