@@ -20,6 +20,9 @@ export async function SiteHeader() {
           <Link href="/tools" className="hover:text-copper">
             Tools
           </Link>
+          <Link href="/compare" className="hover:text-copper">
+            Compare
+          </Link>
           <Link href="/requests" className="hover:text-copper">
             Requests
           </Link>
