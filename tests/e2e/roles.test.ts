@@ -62,6 +62,8 @@ const samplePaths: Record<keyof typeof pageAccess, string> = {
   "/workspace/runs/[id]/captures/[captureId]": `/workspace/runs/${demoRuns[0]!.id}/captures/${demoRuns[0]!.captures[0]!.id}`,
   // readers: compare (the two demo labs' published tools)
   "/compare": `/compare?a=${demoRuns[0]!.toolSlug}&b=${demoRuns[1]!.toolSlug}`,
+  // readers: catalogue and search (a word from the demo reports' bodies)
+  "/search": "/search?q=station",
 };
 
 function demoAccount(role: Role) {
