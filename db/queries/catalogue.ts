@@ -74,7 +74,14 @@ export async function listTools({ q, category, maker, minPowerW, maxPowerW, volt
   }
   const where = and(...filters);
   const direction = (order ?? defaultSortOrder(sort)) === "desc" ? sql`desc` : sql`asc`;
-  const sortKey = { name: toolName, ratedPower: tools.ratedPowerW, price: tools.priceMinor, newestResult: results.newestResultAt }[sort];
+  // A missing price or result sorts last whichever way the column is turned. Prices are compared within their
+  // currency (there are no exchange rates here), so price order groups them by currency first.
+  const sortKeys: Record<NonNullable<CatalogueRequest["sort"]>, SQL[]> = {
+    name: [sql`${toolName} ${direction}`],
+    ratedPower: [sql`${tools.ratedPowerW} ${direction}`],
+    price: [sql`${tools.currency} asc nulls last`, sql`${tools.priceMinor} ${direction} nulls last`],
+    newestResult: [sql`${results.newestResultAt} ${direction} nulls last`],
+  };
   const [rows, [total]] = await Promise.all([
     db
       .select({ ...toolSpecColumns, publishedReports: sql<number>`coalesce(${results.reportCount}, 0)`.mapWith(Number), newestResultAt: results.newestResultAt })
@@ -82,8 +89,7 @@ export async function listTools({ q, category, maker, minPowerW, maxPowerW, volt
       .innerJoin(makers, eq(makers.id, tools.makerId))
       .leftJoin(results, eq(results.toolId, tools.id))
       .where(where)
-      // A missing price or result sorts last whichever way the column is turned.
-      .orderBy(sql`${sortKey} ${direction} nulls last`, asc(makers.name), asc(tools.model), asc(tools.id))
+      .orderBy(...sortKeys[sort], asc(makers.name), asc(tools.model), asc(tools.id))
       .limit(perPage)
       .offset((page - 1) * perPage),
     db.select({ value: count() }).from(tools).innerJoin(makers, eq(makers.id, tools.makerId)).leftJoin(results, eq(results.toolId, tools.id)).where(where),

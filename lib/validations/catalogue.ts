@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { optionalNumberField } from "@/lib/validations/form-fields";
+import { optionalNumberField, withoutBlankParams } from "@/lib/validations/form-fields";
 
 export const toolCategories = ["hot_air_station", "soldering_station", "rework_station", "heat_gun"] as const;
 
@@ -48,29 +48,32 @@ const wattsField = optionalNumberField(
  * The catalogue's filters, sort and page, as GET /api/tools and the /tools page read them from the query string.
  * Every parameter is optional; an empty one counts as not given.
  */
-export const catalogueQuerySchema = z
-  .object({
-    q: z.string().trim().max(100, "Search text is limited to 100 characters.").optional(),
-    category: z.enum(toolCategories, { message: `category must be one of: ${toolCategories.join(", ")}` }).optional(),
-    maker: z
-      .string()
-      .trim()
-      .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, "maker is a maker's short name as in its address, such as quillfern-thermal")
-      .max(100, "maker is at most 100 characters")
-      .optional(),
-    minPowerW: wattsField,
-    maxPowerW: wattsField,
-    voltage: z.enum(voltageBandKeys, { message: `voltage must be one of: ${voltageBandKeys.join(", ")}` }).optional(),
-    published: z.enum(publishedResultChoices, { message: `published must be one of: ${publishedResultChoices.join(", ")}` }).optional(),
-    sort: z.enum(catalogueSorts, { message: `sort must be one of: ${catalogueSorts.join(", ")}` }).default("name"),
-    order: z.enum(sortOrders, { message: "order must be asc or desc" }).optional(),
-    page: z.coerce.number().int("page must be a whole number").min(1, "page starts at 1").max(10_000).default(1),
-    perPage: z.coerce.number().int("perPage must be a whole number").min(1).max(100, "perPage is at most 100").default(catalogueDefaultPerPage),
-  })
-  .refine((query) => query.minPowerW === null || query.maxPowerW === null || query.minPowerW <= query.maxPowerW, {
-    path: ["maxPowerW"],
-    message: "The upper rated power must be at least the lower one.",
-  });
+export const catalogueQuerySchema = z.preprocess(
+  withoutBlankParams,
+  z
+    .object({
+      q: z.string().trim().max(100, "Search text is limited to 100 characters.").optional(),
+      category: z.enum(toolCategories, { message: `category must be one of: ${toolCategories.join(", ")}` }).optional(),
+      maker: z
+        .string()
+        .trim()
+        .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, "maker is a maker's short name as in its address, such as quillfern-thermal")
+        .max(100, "maker is at most 100 characters")
+        .optional(),
+      minPowerW: wattsField,
+      maxPowerW: wattsField,
+      voltage: z.enum(voltageBandKeys, { message: `voltage must be one of: ${voltageBandKeys.join(", ")}` }).optional(),
+      published: z.enum(publishedResultChoices, { message: `published must be one of: ${publishedResultChoices.join(", ")}` }).optional(),
+      sort: z.enum(catalogueSorts, { message: `sort must be one of: ${catalogueSorts.join(", ")}` }).default("name"),
+      order: z.enum(sortOrders, { message: "order must be asc or desc" }).optional(),
+      page: z.coerce.number().int("page must be a whole number").min(1, "page starts at 1").max(10_000).default(1),
+      perPage: z.coerce.number().int("perPage must be a whole number").min(1).max(100, "perPage is at most 100").default(catalogueDefaultPerPage),
+    })
+    .refine((query) => query.minPowerW === null || query.maxPowerW === null || query.minPowerW <= query.maxPowerW, {
+      path: ["maxPowerW"],
+      message: "The upper rated power must be at least the lower one.",
+    }),
+);
 
 export type CatalogueQuery = z.infer<typeof catalogueQuerySchema>;
 

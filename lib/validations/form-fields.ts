@@ -54,3 +54,9 @@ export const checkboxField = z.preprocess((value) => value === "on" || value ===
 export const evenWithFieldErrors = {
   when: (payload: { value: unknown }) => typeof payload.value === "object" && payload.value !== null,
 };
+
+/** For a query string: a parameter given empty (as a plain GET form sends an unused field) is read as not given. */
+export function withoutBlankParams(input: unknown): unknown {
+  if (typeof input !== "object" || input === null || Array.isArray(input)) return input;
+  return Object.fromEntries(Object.entries(input).filter(([, value]) => !(typeof value === "string" && value.trim() === "")));
+}
