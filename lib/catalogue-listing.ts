@@ -19,7 +19,9 @@ export function loadCataloguePage(query: CatalogueQuery) {
   return unstable_cache(() => listTools(query), ["catalogue-page", JSON.stringify(query)], catalogueCache)();
 }
 
-export const loadCatalogueMakers = unstable_cache(() => listCatalogueMakers(), ["catalogue-makers"], catalogueCache);
+export function loadCatalogueMakers() {
+  return unstable_cache(() => listCatalogueMakers(), ["catalogue-makers"], catalogueCache)();
+}
 
 export function loadReportSearch(search: ReportSearch) {
   return unstable_cache(() => searchPublishedReports(search), ["report-search", search.q, String(search.page)], {

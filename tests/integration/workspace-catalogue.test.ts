@@ -18,7 +18,7 @@ import { createAccount } from "../support/factories";
 import { actAs } from "../support/session-mock";
 
 vi.mock("@/lib/auth", async () => (await import("../support/session-mock")).authMock);
-vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn() }));
+vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn(), updateTag: vi.fn() }));
 // The real insert, replaceable per test to simulate the database failing after the objects were stored.
 vi.mock("@/db/queries/tool-photos", async (importOriginal) => {
   const actual = await importOriginal<typeof import("@/db/queries/tool-photos")>();

@@ -1,15 +1,17 @@
 "use server";
 
-import { revalidatePath } from "next/cache";
+import { revalidatePath, updateTag } from "next/cache";
 import { redirect } from "next/navigation";
 import { db } from "@/db";
 import { getToolForEditing, insertTool, updateTool as updateToolRow } from "@/db/queries/tools";
+import { catalogueCacheTag } from "@/lib/catalogue-listing";
 import { UserFacingError } from "@/lib/errors";
 import { guardedAction } from "@/lib/guarded-action";
 import { removeToolPhoto, storeToolPhoto } from "@/lib/tool-photos";
 import { toolFormSchema, toolPhotoDeleteSchema, toolPhotoUploadSchema, toolUpdateSchema } from "@/lib/validations/tool";
 
 function revalidateTool(slug: string) {
+  updateTag(catalogueCacheTag);
   revalidatePath("/tools");
   revalidatePath(`/tools/${slug}`);
   revalidatePath("/workspace/tools");
