@@ -6,6 +6,7 @@ import { parseArgs } from "node:util";
 import { z } from "zod";
 import { analyzeCapture, type AnalysisOptions, type CaptureAnalysis } from "../lib/bench/analysis";
 import { CaptureError } from "../lib/bench/capture-csv";
+import { startHelperThread } from "../lib/bench/helper-thread";
 
 const USAGE = `usage: npm run --silent analyze -- FILE [--current COL] [--current-scale K] [--voltage COL] [--voltage-scale K]
   [--time COL] [--sample-interval S] [--nominal-voltage V] [--frequency HZ] [--lamp 230|120] [--impedance R,X]
@@ -232,9 +233,12 @@ function summary(file: string, result: CaptureAnalysis): string {
 
 async function main(argv: string[]): Promise<number> {
   const json = argv.includes("--json");
+  // The helper thread starts while the flags are read; a failure to start is reported like any other.
+  const helperStarting = startHelperThread();
+  helperStarting.catch(() => undefined);
   try {
     const flags = readFlags(argv);
-    const result = await analyzeCapture({ path: flags.file }, toOptions(flags));
+    const result = await analyzeCapture({ path: flags.file }, toOptions(flags), undefined, await helperStarting);
     process.stdout.write(flags.json ? `${JSON.stringify(result)}\n` : `${summary(flags.file, result)}\n`);
     return 0;
   } catch (error) {

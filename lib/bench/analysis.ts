@@ -3,7 +3,7 @@
 // it returns is the CLI's --json output, documented in the README.
 
 import { z } from "zod";
-import { assertEnoughCycles, CaptureError, readCapture, readCaptureFile, type Capture, type CaptureData } from "./capture-csv";
+import { assertEnoughCycles, CaptureError, readCapture, readCaptureFile, type Capture, type CaptureData, type CaptureRangeReader } from "./capture-csv";
 import {
   currentFigures,
   halfCycleBoundaries,
@@ -24,7 +24,7 @@ import {
   type EstimatedPower,
   type Firing,
 } from "./half-cycles";
-import { assessHarmonics, harmonicWindowCycles, measureHarmonics, type HarmonicsReport } from "./harmonics";
+import { assessHarmonics, harmonicWindowCycles, measureHarmonics, type HarmonicSpectrum, type HarmonicsInput, type HarmonicsReport } from "./harmonics";
 import { parseAccuracySpec } from "./uncertainty";
 import { judgePowerInput, type PowerInputVerdict } from "./verdict";
 
@@ -138,17 +138,27 @@ export interface CaptureAnalysis {
 /** Receives each stage's wall time, for the benchmark. */
 export type StageObserver = (stage: string, milliseconds: number) => void;
 
+/**
+ * A second thread (lib/bench/helper-thread.ts) for callers that start one: it reads the second half of a large
+ * capture file and measures the harmonics while this thread does the rest. The figures are the same without it.
+ */
+export interface AnalysisHelper {
+  readRange: CaptureRangeReader;
+  /** Starts measureHarmonics on the helper; the function returned waits for its result. The current must be on shared memory. */
+  startHarmonics(input: HarmonicsInput): () => HarmonicSpectrum;
+}
+
 function nominalFrequencyFor(options: ParsedOptions): number {
   return options.nominalFrequencyHz ?? (options.nominalVoltage <= 150 ? 60 : 50);
 }
 
 /** Reads a capture (a file, or bytes and chunks from storage) and analyses it. */
-export async function analyzeCapture(source: CaptureSource, options: AnalysisOptions, observer?: StageObserver): Promise<CaptureAnalysis> {
-  return analyzeSamples(await readCaptureForAnalysis(source, options, observer), options, observer);
+export async function analyzeCapture(source: CaptureSource, options: AnalysisOptions, observer?: StageObserver, helper?: AnalysisHelper): Promise<CaptureAnalysis> {
+  return analyzeSamples(await readCaptureForAnalysis(source, options, observer, helper), options, observer, helper);
 }
 
 /** The reading half of analyzeCapture, for callers that need the samples too (the worker draws charts from them). */
-export async function readCaptureForAnalysis(source: CaptureSource, options: AnalysisOptions, observer?: StageObserver): Promise<Capture> {
+export async function readCaptureForAnalysis(source: CaptureSource, options: AnalysisOptions, observer?: StageObserver, helper?: AnalysisHelper): Promise<Capture> {
   const parsed = analysisOptionsSchema.parse(options);
   const nominalHz = nominalFrequencyFor(parsed);
   const readOptions = {
@@ -163,7 +173,7 @@ export async function readCaptureForAnalysis(source: CaptureSource, options: Ana
   const started = performance.now();
   const capture =
     "path" in source
-      ? await readCaptureFile(source.path, readOptions)
+      ? await readCaptureFile(source.path, readOptions, helper?.readRange)
       : await readCapture(source.data, { ...readOptions, sizeHintBytes: source.sizeBytes });
   observer?.("read", performance.now() - started);
   return capture;
@@ -174,6 +184,7 @@ export function analyzeSamples(
   capture: Pick<Capture, "current" | "voltage" | "sampleRateHz"> & Partial<Pick<Capture, "timeSource" | "mapping">>,
   options: AnalysisOptions,
   observer?: StageObserver,
+  helper?: AnalysisHelper,
 ): CaptureAnalysis {
   const parsed = analysisOptionsSchema.parse(options);
   const { sampleRateHz, voltage } = capture;
@@ -204,6 +215,10 @@ export function analyzeSamples(
   stage("frequency");
 
   const boundaries = halfCycleBoundaries(mains.crossings, sampleRateHz, frequencyHz, current.length);
+  const harmonicsInput = { current, sampleRateHz, frequencyHz, startSample: boundaries[0] ?? 0 };
+  // On a helper thread the harmonics are measured while this one works through the half-cycles and the flicker.
+  const harmonicSpectrum =
+    helper !== undefined && current.buffer instanceof SharedArrayBuffer ? helper.startHarmonics(harmonicsInput) : () => measureHarmonics(harmonicsInput);
   const table = tabulateHalfCycles(current, voltage, boundaries);
   const record = sumHalfCycles(table, 0, table.count);
   const conduction = classifyConduction(table, sampleRateHz);
@@ -253,17 +268,6 @@ export function analyzeSamples(
   }
   stage("half-cycles");
 
-  const spectrum = measureHarmonics({ current, sampleRateHz, frequencyHz, startSample: boundaries[0] ?? 0 });
-  const harmonics = assessHarmonics({
-    spectrum,
-    harmonicClass: parsed.harmonicClass,
-    nominalVoltage,
-    powerW: parsed.rating?.ratedPowerW ?? powerWhileConducting,
-    powerIsRated: parsed.rating !== null,
-    currentRmsWhileConducting,
-  });
-  stage("harmonics");
-
   const flicker = estimateFlicker({
     current,
     sampleRateHz,
@@ -274,6 +278,16 @@ export function analyzeSamples(
     dmaxLimitPercent: parsed.dmaxLimitPercent,
   });
   stage("flicker");
+
+  const harmonics = assessHarmonics({
+    spectrum: harmonicSpectrum(),
+    harmonicClass: parsed.harmonicClass,
+    nominalVoltage,
+    powerW: parsed.rating?.ratedPowerW ?? powerWhileConducting,
+    powerIsRated: parsed.rating !== null,
+    currentRmsWhileConducting,
+  });
+  stage("harmonics");
 
   let verdict: PowerInputVerdict | null = null;
   let verdictUnavailableReason: string | null = null;

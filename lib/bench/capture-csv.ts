@@ -7,7 +7,7 @@
 // 13× slower than numpy.loadtxt (3.1 s), and the target is twice as fast as
 // numpy: both build a string per field and an array per row.
 
-import { open } from "node:fs/promises";
+import { open, type FileHandle } from "node:fs/promises";
 
 /** A rejected capture: `message` names the problem, `line` is 1-based, or null when no single line is at fault. */
 export class CaptureError extends Error {
@@ -93,7 +93,70 @@ export async function readCapture(data: CaptureData, options: CaptureReadOptions
 
 const READ_CHUNK_BYTES = 1 << 20;
 
-export async function readCaptureFile(path: string, options: CaptureReadOptions = {}): Promise<Capture> {
+/**
+ * Reads rows [start, end) of a capture file on another thread: the header already read by the caller fixes the
+ * format and the row and line numbers before countFrom; bytes [countFrom, start) are the caller's share, whose lines
+ * are counted here to place this range's rows and line numbers.
+ */
+export type CaptureRangeReader = (request: CaptureRangeRequest) => Promise<CaptureRangeTally>;
+
+export interface CaptureRangeRequest {
+  path: string;
+  countFrom: number;
+  start: number;
+  end: number;
+  /** Rows stored and lines read before countFrom. */
+  row: number;
+  line: number;
+  format: RowFormat;
+  channels: SharedChannels;
+}
+
+/** What a range of rows added, and the first problem in it (a CaptureError's problem and line). */
+export interface CaptureRangeTally {
+  counted: number;
+  rows: number;
+  /** The line the range ended on. */
+  line: number;
+  firstTime: number;
+  firstTimeLine: number;
+  lastTime: number;
+  largestInterval: number;
+  largestIntervalLine: number;
+  error: { problem: string; line: number | null } | null;
+}
+
+/** How data rows are laid out, fixed by the header: enough to read a range of them anywhere, another thread included. */
+export interface RowFormat {
+  delimiter: number;
+  commaIsDecimal: boolean;
+  roles: number[];
+  columns: string[];
+  scales: { current: number; voltage: number; temperature: number };
+  hasTime: boolean;
+  timestampBaseSeconds: number | null;
+}
+
+/** Channel arrays on shared memory, sized for every row the file could hold, written by both threads. */
+export interface SharedChannels {
+  current: Float64Array | null;
+  voltage: Float64Array | null;
+  temperature: Float64Array | null;
+}
+
+/** Below this size a second thread costs more to start than it saves. */
+const SPLIT_MIN_BYTES = 8 << 20;
+/**
+ * The helper thread counts the lines of this thread's share before reading its own (counting costs about a quarter
+ * of parsing), so this thread takes the larger share and both finish together.
+ */
+const OWN_SHARE = 0.57;
+
+/**
+ * Reads a capture file. Given a range reader (a helper thread), a large file's rows are read in two ranges at once,
+ * into shared arrays; the result, rejections included, is the same as reading it in one pass.
+ */
+export async function readCaptureFile(path: string, options: CaptureReadOptions = {}, readRange?: CaptureRangeReader): Promise<Capture> {
   let handle;
   try {
     handle = await open(path, "r");
@@ -103,25 +166,109 @@ export async function readCaptureFile(path: string, options: CaptureReadOptions 
   }
   try {
     const { size } = await handle.stat();
-    const reader = new CaptureReader({ ...options, sizeHintBytes: options.sizeHintBytes ?? size });
-    // Two buffers in turn, the next chunk read on libuv's thread pool while this one is parsed; the
-    // reader copies only a line cut at a chunk's end, so a buffer is free again once pushed.
-    const buffers = [Buffer.allocUnsafe(READ_CHUNK_BYTES), Buffer.allocUnsafe(READ_CHUNK_BYTES)];
-    let position = 0;
-    let reading = handle.read(buffers[0] as Buffer, 0, READ_CHUNK_BYTES, position);
-    for (let turn = 1; ; turn++) {
-      const { bytesRead, buffer } = await reading;
-      if (bytesRead === 0) break;
-      position += bytesRead;
-      reading = handle.read(buffers[turn % 2] as Buffer, 0, READ_CHUNK_BYTES, position);
-      // If parsing fails, this read is never awaited: its own failure must not go unhandled.
-      reading.catch(() => undefined);
-      reader.push(buffer.subarray(0, bytesRead));
+    const split = readRange !== undefined && size >= SPLIT_MIN_BYTES;
+    const reader = new CaptureReader({ ...options, sizeHintBytes: options.sizeHintBytes ?? size }, split ? { sharedRowsForBytes: size } : undefined);
+    if (split) {
+      const first = Buffer.allocUnsafe(READ_CHUNK_BYTES);
+      const { bytesRead } = await handle.read(first, 0, READ_CHUNK_BYTES, 0);
+      reader.push(first.subarray(0, bytesRead));
+      const resumeAt = bytesRead - reader.dropCarry();
+      const ranges = reader.inRows() ? await splitPoint(handle, resumeAt, size) : null;
+      if (ranges !== null) {
+        const request = { path, countFrom: ranges.start, end: size, ...reader.position() };
+        const [own, helper] = await Promise.allSettled([
+          readCaptureRange({ ...request, start: ranges.start, end: ranges.middle }),
+          readRange({ ...request, start: ranges.middle }),
+        ]);
+        if (own.status === "rejected") throw own.reason;
+        if (helper.status === "rejected") throw helper.reason;
+        reader.joinRanges(own.value, helper.value);
+        return reader.finish();
+      }
+      await readChunks(handle, reader, resumeAt);
+      return reader.finish();
     }
+    await readChunks(handle, reader, 0);
     return reader.finish();
   } finally {
     await handle.close();
   }
+}
+
+/** Where the helper's range starts: the line after the byte OWN_SHARE of the way through the rows; null if no line ends there. */
+async function splitPoint(handle: FileHandle, start: number, size: number): Promise<{ start: number; middle: number } | null> {
+  const probe = Buffer.allocUnsafe(64 << 10);
+  const at = start + Math.floor((size - start) * OWN_SHARE);
+  const { bytesRead } = await handle.read(probe, 0, probe.length, at);
+  const newline = probe.subarray(0, bytesRead).indexOf(LF);
+  return newline < 0 || at + newline + 1 >= size ? null : { start, middle: at + newline + 1 };
+}
+
+async function readChunks(handle: FileHandle, reader: CaptureReader, from: number, to = Infinity): Promise<void> {
+  // Two buffers in turn, the next chunk read on libuv's thread pool while this one is parsed; the
+  // reader copies only a line cut at a chunk's end, so a buffer is free again once pushed.
+  const buffers = [Buffer.allocUnsafe(READ_CHUNK_BYTES), Buffer.allocUnsafe(READ_CHUNK_BYTES)];
+  let position = from;
+  const length = () => Math.min(READ_CHUNK_BYTES, to - position);
+  let reading = handle.read(buffers[0] as Buffer, 0, length(), position);
+  for (let turn = 1; ; turn++) {
+    const { bytesRead, buffer } = await reading;
+    if (bytesRead === 0) break;
+    position += bytesRead;
+    reading = handle.read(buffers[turn % 2] as Buffer, 0, Math.max(0, length()), position);
+    // If parsing fails, this read is never awaited: its own failure must not go unhandled.
+    reading.catch(() => undefined);
+    reader.push(buffer.subarray(0, bytesRead));
+  }
+}
+
+/** Reads one range of rows (see CaptureRangeReader); a rejection is returned in the tally, not thrown, so it can cross threads. */
+export async function readCaptureRange(request: CaptureRangeRequest): Promise<CaptureRangeTally> {
+  const handle = await open(request.path, "r");
+  try {
+    const counted = request.countFrom < request.start ? await countLines(handle, request.countFrom, request.start) : 0;
+    const reader = new CaptureReader({}, { range: { format: request.format, channels: request.channels, row: request.row + counted, line: request.line + counted } });
+    try {
+      await readChunks(handle, reader, request.start, request.end);
+      reader.flushLastLine();
+    } catch (error) {
+      if (!(error instanceof CaptureError)) throw error;
+      return reader.tally(counted, { problem: error.problem, line: error.line });
+    }
+    return reader.tally(counted, null);
+  } finally {
+    await handle.close();
+  }
+}
+
+async function countLines(handle: FileHandle, from: number, to: number): Promise<number> {
+  // Its own ArrayBuffer, so the word view below starts aligned.
+  const buffer = new Uint8Array(READ_CHUNK_BYTES);
+  let lines = 0;
+  for (let position = from; position < to; ) {
+    const { bytesRead } = await handle.read(buffer, 0, Math.min(buffer.length, to - position), position);
+    if (bytesRead === 0) break;
+    lines += countLineFeeds(buffer, bytesRead);
+    position += bytesRead;
+  }
+  return lines;
+}
+
+/** Line feeds four bytes at a time: a word holds one only when (x − 0x01010101) & ~x & 0x80808080 is set for x = word ^ 0x0a0a0a0a. */
+function countLineFeeds(buffer: Uint8Array, length: number): number {
+  const words = new Int32Array(buffer.buffer, buffer.byteOffset, length >> 2);
+  let lines = 0;
+  for (let k = 0; k < words.length; k++) {
+    const x = (words[k] as number) ^ 0x0a0a0a0a;
+    if (((x - 0x01010101) & ~x & 0x80808080) !== 0) {
+      if ((x & 0xff) === 0) lines++;
+      if ((x & 0xff00) === 0) lines++;
+      if ((x & 0xff0000) === 0) lines++;
+      if ((x & 0xff000000) === 0) lines++;
+    }
+  }
+  for (let k = words.length << 2; k < length; k++) if (buffer[k] === LF) lines++;
+  return lines;
 }
 
 /** Rejects a capture holding fewer whole cycles at `frequencyHz` than the analysis needs (it counts only whole cycles). */
@@ -228,9 +375,129 @@ class CaptureReader {
   private timestampBaseSeconds: number | null = null;
   private largestInterval = 0;
   private largestIntervalLine = 0;
+  /** Index of this reader's first row, and the line it was on: not 0 when reading a range of a file. */
+  private firstRow = 0;
+  private firstTimeLine = 0;
+  private readonly sharedRowsForBytes: number | null = null;
 
-  constructor(options: CaptureReadOptions) {
+  constructor(options: CaptureReadOptions, shared?: { sharedRowsForBytes: number } | { range: { format: RowFormat; channels: SharedChannels; row: number; line: number } }) {
     this.options = options;
+    if (shared === undefined) return;
+    if ("sharedRowsForBytes" in shared) {
+      this.sharedRowsForBytes = shared.sharedRowsForBytes;
+      return;
+    }
+    const { format, channels, row, line } = shared.range;
+    this.sawContent = true;
+    this.inData = true;
+    this.bytesSeen = 1;
+    this.delimiter = format.delimiter;
+    this.commaIsDecimal = format.commaIsDecimal;
+    this.roles = Int8Array.from(format.roles);
+    this.columnCount = format.roles.length;
+    this.columns = format.columns;
+    this.hasTime = format.hasTime;
+    this.timestampBaseSeconds = format.timestampBaseSeconds;
+    this.scaleCurrent = format.scales.current;
+    this.scaleVoltage = format.scales.voltage;
+    this.scaleTemperature = format.scales.temperature;
+    this.current = channels.current;
+    this.voltage = channels.voltage;
+    this.temperature = channels.temperature;
+    this.capacity = (channels.current ?? channels.voltage ?? channels.temperature)?.length ?? 0;
+    this.sharedRowsForBytes = Number.POSITIVE_INFINITY;
+    this.rows = row;
+    this.firstRow = row;
+    this.line = line;
+  }
+
+  inRows(): boolean {
+    return this.inData;
+  }
+
+  /** Forgets a line cut at the end of what was pushed, to be read again from its start; returns its length in bytes. */
+  dropCarry(): number {
+    const length = this.carry?.length ?? 0;
+    this.carry = null;
+    return length;
+  }
+
+  /** Where the rows read so far end, and their format: the start of a range for readCaptureRange. */
+  position(): { row: number; line: number; format: RowFormat; channels: SharedChannels } {
+    return {
+      row: this.rows,
+      line: this.line,
+      format: {
+        delimiter: this.delimiter,
+        commaIsDecimal: this.commaIsDecimal,
+        roles: Array.from(this.roles),
+        columns: this.columns,
+        scales: { current: this.scaleCurrent, voltage: this.scaleVoltage, temperature: this.scaleTemperature },
+        hasTime: this.hasTime,
+        timestampBaseSeconds: this.timestampBaseSeconds,
+      },
+      channels: { current: this.current, voltage: this.voltage, temperature: this.temperature },
+    };
+  }
+
+  /** The last line of a file that does not end with a line feed. */
+  flushLastLine(): void {
+    if (this.carry === null) return;
+    const last = new Uint8Array(this.carry.length + 1);
+    last.set(this.carry);
+    last[this.carry.length] = LF;
+    this.carry = null;
+    this.process(last, 0, last.length);
+  }
+
+  tally(counted: number, error: CaptureRangeTally["error"]): CaptureRangeTally {
+    return {
+      counted,
+      rows: this.rows - this.firstRow,
+      line: this.line,
+      firstTime: this.firstTime,
+      firstTimeLine: this.firstTimeLine,
+      lastTime: this.lastTime,
+      largestInterval: this.largestInterval,
+      largestIntervalLine: this.largestIntervalLine,
+      error,
+    };
+  }
+
+  /**
+   * Takes in the two ranges read after this reader's rows, in file order, as if it had read them itself: the helper's
+   * rows move down over lines of the first range that held no row (blank lines, comments), the time checks run
+   * across both joins, and the first rejection in file order is thrown.
+   */
+  joinRanges(...ranges: CaptureRangeTally[]): void {
+    const splitAt = this.rows;
+    for (const range of ranges) {
+      const at = this.rows;
+      // Each range counted the lines from the split to its start, and stored its rows that far past the split.
+      const storedAt = splitAt + range.counted;
+      if (storedAt !== at) {
+        for (const channel of [this.current, this.voltage, this.temperature]) channel?.copyWithin(at, storedAt, storedAt + range.rows);
+      }
+      if (range.rows > 0 && this.hasTime) {
+        if (this.rows === 0) this.firstTime = range.firstTime;
+        else {
+          const interval = range.firstTime - this.lastTime;
+          if (!(interval > 0)) throw timeNotIncreasing(range.firstTime, this.lastTime, range.firstTimeLine);
+          if (interval > this.largestInterval) {
+            this.largestInterval = interval;
+            this.largestIntervalLine = range.firstTimeLine;
+          }
+        }
+      }
+      if (range.error !== null) throw new CaptureError(range.error.problem, range.error.line);
+      if (range.largestInterval > this.largestInterval) {
+        this.largestInterval = range.largestInterval;
+        this.largestIntervalLine = range.largestIntervalLine;
+      }
+      if (range.rows > 0) this.lastTime = range.lastTime;
+      this.rows += range.rows;
+      this.line = range.line;
+    }
   }
 
   push(chunk: Uint8Array): void {
@@ -260,13 +527,7 @@ class CaptureReader {
   }
 
   finish(): Capture {
-    if (this.carry !== null) {
-      const last = new Uint8Array(this.carry.length + 1);
-      last.set(this.carry);
-      last[this.carry.length] = LF;
-      this.carry = null;
-      this.process(last, 0, last.length);
-    }
+    this.flushLastLine();
     if (!this.sawContent) throw new CaptureError("empty file: there is nothing to read", null);
     if (!this.inData) {
       throw new CaptureError(
@@ -536,14 +797,20 @@ class CaptureReader {
     this.scaleVoltage = options.voltage?.scale ?? 1;
     this.scaleTemperature = options.temperature?.scale ?? 1;
 
-    this.capacity = INITIAL_CAPACITY;
-    if (current !== null) this.current = new Float64Array(this.capacity);
-    if (voltage !== null) this.voltage = new Float64Array(this.capacity);
-    if (temperature !== null) this.temperature = new Float64Array(this.capacity);
+    const shared = this.sharedRowsForBytes;
+    // A row takes at least a delimiter between columns, a character in each mapped one and a line feed: for shared
+    // arrays, which cannot grow under another thread's writes, that bounds the rows. Pages never written take no memory.
+    this.capacity = shared === null ? INITIAL_CAPACITY : Math.floor(shared / (this.columnCount + 1)) + 1;
+    const allocate = () =>
+      shared === null ? new Float64Array(this.capacity) : new Float64Array(new SharedArrayBuffer(this.capacity * Float64Array.BYTES_PER_ELEMENT));
+    if (current !== null) this.current = allocate();
+    if (voltage !== null) this.voltage = allocate();
+    if (temperature !== null) this.temperature = allocate();
   }
 
   /** Sizes the arrays from the bytes a row takes so far when the total size is known, else grows by half. */
   private grow(dataBytesRead: number): void {
+    if (this.sharedRowsForBytes !== null) throw new Error("shared capture arrays are sized for every row the file can hold; a row beyond that is a bug");
     const hint = this.options.sizeHintBytes;
     let next = Math.ceil(this.capacity * 1.5);
     if (hint !== undefined && this.rows > 0 && dataBytesRead > 0) {
@@ -582,6 +849,7 @@ class CaptureReader {
     let line = this.line;
     let lastTime = this.lastTime;
     let largestInterval = this.largestInterval;
+    const firstRow = this.firstRow;
     let p = start;
 
     while (p < end) {
@@ -720,15 +988,14 @@ class CaptureReader {
         );
       }
       if (hasTime) {
-        if (rows === 0) this.firstTime = time;
-        else {
+        if (rows === firstRow) {
+          this.firstTime = time;
+          this.firstTimeLine = line;
+        } else {
           const interval = time - lastTime;
           if (!(interval > 0)) {
-            throw new CaptureError(
-              `time not increasing: ${time} s follows ${lastTime} s on the row before ` +
-                "(rows out of order, or times printed with too few digits?)",
-              line,
-            );
+            this.line = line;
+            throw timeNotIncreasing(time, lastTime, line);
           }
           if (interval > largestInterval) {
             largestInterval = interval;
@@ -798,6 +1065,13 @@ class CaptureReader {
     if (this.timestampBaseSeconds === null) this.timestampBaseSeconds = whole;
     return whole - this.timestampBaseSeconds + (fraction === undefined ? 0 : Number(`0.${fraction}`));
   }
+}
+
+function timeNotIncreasing(time: number, lastTime: number, line: number): CaptureError {
+  return new CaptureError(
+    `time not increasing: ${time} s follows ${lastTime} s on the row before (rows out of order, or times printed with too few digits?)`,
+    line,
+  );
 }
 
 function slowNumber(bytes: Uint8Array, start: number, end: number): number {

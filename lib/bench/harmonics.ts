@@ -53,13 +53,15 @@ export interface HarmonicSpectrum {
  * to end from `startSample` (a zero crossing, so each starts at the same
  * phase), averaged over the windows.
  */
-export function measureHarmonics(input: {
+export interface HarmonicsInput {
   current: Float64Array;
   sampleRateHz: number;
   frequencyHz: number;
   startSample: number;
   maxOrder?: number;
-}): HarmonicSpectrum {
+}
+
+export function measureHarmonics(input: HarmonicsInput): HarmonicSpectrum {
   const { current, sampleRateHz, frequencyHz, startSample } = input;
   const maxOrder = input.maxOrder ?? MAX_HARMONIC_ORDER;
   const windowCycles = harmonicWindowCycles(frequencyHz);

@@ -1,0 +1,31 @@
+// The helper thread's side (see helper-thread.ts): bundled on its own, so it imports only the bench modules it runs.
+
+import { parentPort, type MessagePort } from "node:worker_threads";
+import { readCaptureRange, type CaptureRangeRequest, type CaptureRangeTally } from "./capture-csv";
+import { measureHarmonics, type HarmonicsInput } from "./harmonics";
+
+export type HelperRequest =
+  | { kind: "range"; id: number; request: CaptureRangeRequest }
+  | { kind: "harmonics"; input: HarmonicsInput; port: MessagePort; done: Int32Array };
+
+export type HelperReply = { id: number; tally: CaptureRangeTally } | { id: number; error: string };
+
+const messageOf = (error: unknown) => (error instanceof Error ? error.message : String(error));
+
+parentPort?.on("message", (request: HelperRequest) => {
+  if (request.kind === "range") {
+    readCaptureRange(request.request).then(
+      (tally) => parentPort?.postMessage({ id: request.id, tally } satisfies HelperReply),
+      (error: unknown) => parentPort?.postMessage({ id: request.id, error: messageOf(error) } satisfies HelperReply),
+    );
+    return;
+  }
+  try {
+    request.port.postMessage({ spectrum: measureHarmonics(request.input) });
+  } catch (error) {
+    request.port.postMessage({ error: messageOf(error) });
+  }
+  request.port.close();
+  Atomics.store(request.done, 0, 1);
+  Atomics.notify(request.done, 0);
+});

@@ -1,0 +1,91 @@
+// A second thread for the bench math on a two-core machine (the CLI and the benchmark start one): it reads the
+// second half of a large capture and measures the harmonics while the main thread does the rest. Node 20 cannot
+// load TypeScript in a worker thread without a loader of its own (tsx's costs about 34 MB and 0.4 s a thread), so
+// the thread's code is bundled to plain JavaScript by esbuild (tsx's own compiler) as the helper starts.
+
+import { fileURLToPath } from "node:url";
+import { MessageChannel, receiveMessageOnPort, Worker } from "node:worker_threads";
+import { build, stop } from "esbuild";
+import type { AnalysisHelper } from "./analysis";
+import type { CaptureRangeRequest, CaptureRangeTally } from "./capture-csv";
+import type { HarmonicSpectrum, HarmonicsInput } from "./harmonics";
+import type { HelperReply, HelperRequest } from "./helper-thread-entry";
+
+/** How long the main thread waits for the helper's harmonics before it gives up on a thread that died. */
+const HARMONICS_WAIT_MS = 10 * 60 * 1000;
+
+export interface HelperThread extends AnalysisHelper {
+  close(): Promise<void>;
+}
+
+export async function startHelperThread(): Promise<HelperThread> {
+  const bundle = await build({
+    entryPoints: [fileURLToPath(new URL("./helper-thread-entry.ts", import.meta.url))],
+    bundle: true,
+    platform: "node",
+    format: "cjs",
+    target: "node20",
+    write: false,
+    logLevel: "silent",
+  });
+  // esbuild's service process would otherwise keep a finished CLI alive.
+  await stop();
+  const code = bundle.outputFiles[0]?.text;
+  if (code === undefined) throw new Error("esbuild produced no code for the helper thread");
+  const worker = new Worker(code, { eval: true, execArgv: [] });
+
+  const pending = new Map<number, { resolve: (tally: CaptureRangeTally) => void; reject: (error: Error) => void }>();
+  // The helper keeps the process alive only while it owes an answer, so a finished CLI exits.
+  const settle = () => {
+    if (pending.size === 0) worker.unref();
+  };
+  const failAll = (error: Error) => {
+    for (const { reject } of pending.values()) reject(error);
+    pending.clear();
+    settle();
+  };
+  worker.on("message", (reply: HelperReply) => {
+    const waiting = pending.get(reply.id);
+    if (waiting === undefined) return;
+    pending.delete(reply.id);
+    settle();
+    if ("error" in reply) waiting.reject(new Error(`helper thread: ${reply.error}`));
+    else waiting.resolve(reply.tally);
+  });
+  worker.on("error", failAll);
+  worker.on("exit", (code) => failAll(new Error(`the helper thread stopped (exit code ${code})`)));
+  settle();
+
+  let nextId = 0;
+  const send = (request: HelperRequest, transfer: Transferable[] = []) => worker.postMessage(request, transfer as never);
+
+  return {
+    readRange(request: CaptureRangeRequest) {
+      const id = nextId++;
+      return new Promise<CaptureRangeTally>((resolve, reject) => {
+        pending.set(id, { resolve, reject });
+        worker.ref();
+        send({ kind: "range", id, request });
+      });
+    },
+    startHarmonics(input: HarmonicsInput) {
+      const { port1, port2 } = new MessageChannel();
+      const done = new Int32Array(new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT));
+      send({ kind: "harmonics", input, port: port2, done }, [port2]);
+      // Blocking here keeps analyzeSamples synchronous for every caller; the helper's answer is taken off its port directly.
+      return (): HarmonicSpectrum => {
+        const waited = Atomics.wait(done, 0, 0, HARMONICS_WAIT_MS);
+        const received = receiveMessageOnPort(port1);
+        port1.close();
+        if (waited === "timed-out" || received === undefined) throw new Error("the helper thread did not return the harmonics");
+        const answer = received.message as { spectrum: HarmonicSpectrum } | { error: string };
+        if ("error" in answer) throw new Error(`helper thread: ${answer.error}`);
+        return answer.spectrum;
+      };
+    },
+    async close() {
+      failAll(new Error("the helper thread was closed"));
+      await worker.terminate();
+    },
+  };
+}
