@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { optionalNumberField, withoutBlankParams } from "@/lib/validations/form-fields";
+import { optionalNumberField, searchText, withoutBlankParams } from "@/lib/validations/form-fields";
 
 export const toolCategories = ["hot_air_station", "soldering_station", "rework_station", "heat_gun"] as const;
 
@@ -52,7 +52,7 @@ export const catalogueQuerySchema = z.preprocess(
   withoutBlankParams,
   z
     .object({
-      q: z.string().trim().max(100, "Search text is limited to 100 characters.").optional(),
+      q: searchText(100, "Search text is limited to 100 characters.").optional(),
       category: z.enum(toolCategories, { message: `category must be one of: ${toolCategories.join(", ")}` }).optional(),
       maker: z
         .string()

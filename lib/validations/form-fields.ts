@@ -60,3 +60,14 @@ export function withoutBlankParams(input: unknown): unknown {
   if (typeof input !== "object" || input === null || Array.isArray(input)) return input;
   return Object.fromEntries(Object.entries(input).filter(([, value]) => !(typeof value === "string" && value.trim() === "")));
 }
+
+/**
+ * Text a reader types into a search box: control characters (a NUL byte, which PostgreSQL refuses in text, among
+ * them) become spaces, the ends are trimmed, and the length is capped.
+ */
+export function searchText(max: number, tooLong: string) {
+  return z
+    .string()
+    .transform((value) => value.replace(/[\u0000-\u001f\u007f]/g, " "))
+    .pipe(z.string().trim().max(max, tooLong));
+}
