@@ -4,7 +4,7 @@ import { getPublishedRevision, getReadableReport } from "@/db/queries/editorial"
 import { reportCacheTag } from "@/lib/editorial";
 import { serverEnv } from "@/lib/env";
 import { UserFacingError } from "@/lib/errors";
-import { openDataCsv, openDataDocument, openDataFileName, type OpenDataDocument } from "@/lib/open-data";
+import { measurementsDownloadPath, openDataCsv, openDataDocument, openDataFileName, type OpenDataDocument } from "@/lib/open-data";
 import { flattenPublishedResults } from "@/lib/published-results";
 import { handleRoute } from "@/lib/route-handler";
 import { measurementsDownloadParamsSchema } from "@/lib/validations/open-data";
@@ -15,10 +15,6 @@ export type MeasurementsDownload = {
   etag: string;
   lastModified: Date;
 };
-
-export function measurementsDownloadPath(slug: string, extension: "csv" | "json"): string {
-  return `/reports/${slug}/measurements.${extension}`;
-}
 
 /** The current published revision's measurements as open data; null for a report readers cannot see. */
 export async function loadMeasurementsDownload({ slug }: { slug: string }): Promise<MeasurementsDownload | null> {

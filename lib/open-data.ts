@@ -108,11 +108,11 @@ const contextColumns: ContextColumn[] = [
   },
 ];
 
-type UnitField = { prefix: string; description: string; read: (result: PublishedResult) => number | null };
+type UnitField = { prefix: string; description: string; always?: true; read: (result: PublishedResult) => number | null };
 
 const unitFields: UnitField[] = [
-  { prefix: "value", description: "Measured value", read: (r) => r.value },
-  { prefix: "expanded_uncertainty_k2", description: "Expanded uncertainty (k = 2) of the measured value", read: (r) => r.expandedUncertainty },
+  { prefix: "value", description: "Measured value", always: true, read: (r) => r.value },
+  { prefix: "expanded_uncertainty_k2", description: "Expanded uncertainty (k = 2) of the measured value", always: true, read: (r) => r.expandedUncertainty },
   { prefix: "rated", description: "The tool's rating the value was judged against", read: (r) => r.verdict?.rated ?? null },
   { prefix: "tolerance_lower", description: "Lower tolerance limit", read: (r) => r.verdict?.lower ?? null },
   { prefix: "tolerance_upper", description: "Upper tolerance limit", read: (r) => r.verdict?.upper ?? null },
@@ -121,23 +121,33 @@ const unitFields: UnitField[] = [
   { prefix: "normalized", description: "The value normalised to the rated voltage, as judged", read: (r) => r.verdict?.normalized ?? null },
 ];
 
-/** The columns for these results: the context, then one group per unit that occurs, in the order the units first appear. */
+/**
+ * The columns for these results: the context, then one group per unit that occurs, in the order the units first
+ * appear. A group always has the value and its uncertainty; the verdict's figures only where some row of that unit
+ * has them (a current is rarely judged), so the sheet carries no column that is empty all the way down.
+ */
 export function openDataColumns(results: readonly PublishedResult[]): OpenDataColumn[] {
   const units = [...new Set(results.map((result) => result.unit))];
   return [
     ...contextColumns.map(({ name, type, unit, description }) => ({ name, type, unit, description })),
     ...units.flatMap((unit) =>
-      unitFields.map(({ prefix, description }) => ({ name: `${prefix}_${unitSuffix(unit)}`, type: "number" as const, unit, description: `${description}, in ${unit}.` })),
+      unitFields
+        .filter((field) => field.always || results.some((result) => result.unit === unit && field.read(result) !== null))
+        .map(({ prefix, description }) => ({ name: `${prefix}_${unitSuffix(unit)}`, type: "number" as const, unit, description: `${description}, in ${unit}.` })),
     ),
   ];
 }
 
 export function openDataRecords(results: readonly PublishedResult[]): OpenDataRecord[] {
   const columns = openDataColumns(results);
+  const names = new Set(columns.map((column) => column.name));
   return results.map((result) => {
     const record: OpenDataRecord = Object.fromEntries(columns.map((column) => [column.name, null]));
     for (const column of contextColumns) record[column.name] = column.read(result);
-    for (const field of unitFields) record[`${field.prefix}_${unitSuffix(result.unit)}`] = field.read(result);
+    for (const field of unitFields) {
+      const name = `${field.prefix}_${unitSuffix(result.unit)}`;
+      if (names.has(name)) record[name] = field.read(result);
+    }
     return record;
   });
 }
@@ -183,6 +193,10 @@ export function openDataDocument({ report, results, downloads }: { report: OpenD
 }
 
 export type OpenDataDocument = ReturnType<typeof openDataDocument>;
+
+export function measurementsDownloadPath(slug: string, extension: "csv" | "json"): string {
+  return `/reports/${slug}/measurements.${extension}`;
+}
 
 /** A file name that says which report, which revision, and whether it was retracted. */
 export function openDataFileName(report: Pick<OpenDataReport, "slug" | "retracted" | "revision">, extension: "csv" | "json"): string {

@@ -27,6 +27,12 @@ export function revisionUrl(origin: string, slug: string, number: number): strin
   return `${origin}/reports/${slug}/revisions/${number}`;
 }
 
+/** Notes are typed by people: a note without a full stop must not run into the sentence after it. */
+function asSentence(text: string): string {
+  const trimmed = text.trim();
+  return /[.!?…]["”’)]*$/.test(trimmed) ? trimmed : `${trimmed}.`;
+}
+
 function revisionEntry(origin: string, event: RevisionEvent): AtomEntry {
   const at = event.publishedAt.toISOString();
   const tools = event.toolNames.join(" vs ");
@@ -40,7 +46,7 @@ function revisionEntry(origin: string, event: RevisionEvent): AtomEntry {
     authorName: event.authorName,
     link: original ? `${origin}/reports/${event.slug}` : revisionUrl(origin, event.slug, event.number),
     category: { term: event.kind === "original" ? "publication" : event.kind, label: original ? "New report" : revisionKindLabels[event.kind] },
-    summary: original ? `New report on ${tools}. ${verdicts}` : `${event.changeNote} ${verdicts}`,
+    summary: original ? `New report on ${tools}. ${verdicts}` : `${asSentence(event.changeNote)} ${verdicts}`,
   };
 }
 
@@ -54,7 +60,7 @@ function retractionEntry(origin: string, event: RetractionEvent): AtomEntry {
     authorName: event.authorName,
     link: `${origin}/reports/${event.slug}`,
     category: { term: "retraction", label: "Retraction" },
-    summary: `${event.reason} The report stays readable under a retraction notice; its results no longer stand.`,
+    summary: `${asSentence(event.reason)} The report stays readable under a retraction notice; its results no longer stand.`,
   };
 }
 

@@ -1,5 +1,6 @@
 import Link from "next/link";
 import type { ReadableReportSummary } from "@/db/queries/editorial";
+import { VerdictSummary } from "@/components/published-report/verdict-summary";
 import { formatDate } from "@/lib/format";
 import { revisionKindLabels } from "@/lib/validations/editorial";
 
@@ -20,6 +21,7 @@ export function ReportCards({ reports, headingLevel = 2 }: { reports: ReadableRe
             By {report.authorName}
             {report.firstPublishedAt ? ` · published ${formatDate(report.firstPublishedAt)}` : ""}
           </p>
+          <VerdictSummary results={report.verdictResults} retracted={report.status === "retracted"} />
           <p className="flex flex-wrap gap-2 text-xs">
             {report.status === "retracted" ? <span className="rounded bg-verdict-above px-2 py-0.5 font-semibold text-white">Retracted</span> : null}
             {report.revisionKind !== "original" ? (

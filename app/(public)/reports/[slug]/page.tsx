@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { MakerReplies } from "@/components/published-report/maker-replies";
+import { OpenDataDownloads } from "@/components/published-report/open-data-downloads";
 import { ReportArticle } from "@/components/published-report/report-article";
 import { RetractionBanner, RevisionNotice } from "@/components/published-report/revision-notices";
 import { RevisionHistory } from "@/components/published-report/revision-history";
@@ -45,6 +46,7 @@ export default async function ReportPage({ params }: PageProps<"/reports/[slug]"
           </>
         }
       />
+      <OpenDataDownloads slug={report.slug} revisionNumber={revision.number} retracted={report.status === "retracted"} />
       <RevisionHistory slug={report.slug} revisions={revisions} current={revision.number} />
       <MakerReplies replies={replies} />
       <CommentsSection report={report} />
