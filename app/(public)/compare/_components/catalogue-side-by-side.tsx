@@ -5,8 +5,8 @@ import { formatFrequencies, formatOptional, formatPrice, formatRange, formatRate
 import { toolCategoryLabels } from "@/lib/validations/catalogue";
 import { compareTableClass, compareHeadClass } from "./compare-table";
 
-const rows: { label: string; value: (tool: CatalogueTool) => string }[] = [
-  { label: "Kind of tool", value: (tool) => toolCategoryLabels[tool.category] },
+const rows: { label: string; value: (tool: CatalogueTool) => string; words?: true }[] = [
+  { label: "Kind of tool", value: (tool) => toolCategoryLabels[tool.category], words: true },
   { label: "Rated power input", value: (tool) => `${tool.ratedPowerW} W` },
   { label: "Rated voltage", value: (tool) => formatRatedVoltage(tool.ratedVoltageMin, tool.ratedVoltageMax) },
   { label: "Rated frequency", value: (tool) => formatFrequencies(tool.ratedFrequenciesHz) },
@@ -34,7 +34,7 @@ function accessoryList(tool: CatalogueTool) {
 /** The catalogue's side of the comparison: ratings as the makers state them, price and what comes in the box. */
 export function CatalogueSideBySide({ a, b }: { a: CatalogueTool; b: CatalogueTool }) {
   return (
-    <div className="overflow-x-auto rounded border border-rule bg-paper-raised">
+    <div className="rounded border border-rule bg-paper-raised">
       <table className={compareTableClass}>
         <caption className="sr-only">Ratings, price and accessories of both tools, as the catalogue lists them</caption>
         <thead className={compareHeadClass}>
@@ -54,8 +54,8 @@ export function CatalogueSideBySide({ a, b }: { a: CatalogueTool; b: CatalogueTo
               <th scope="row" className="px-3 py-2 font-semibold">
                 {row.label}
               </th>
-              <td className="figure px-3 py-2">{row.value(a)}</td>
-              <td className="figure px-3 py-2">{row.value(b)}</td>
+              <td className={`${row.words ? "" : "figure "}px-3 py-2`}>{row.value(a)}</td>
+              <td className={`${row.words ? "" : "figure "}px-3 py-2`}>{row.value(b)}</td>
             </tr>
           ))}
           <tr className="border-t border-rule align-top">

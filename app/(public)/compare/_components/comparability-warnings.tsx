@@ -25,15 +25,15 @@ export function ComparabilityWarnings({ warnings, names, compared }: { warnings:
         Not measured on equal terms: {warnings.length} {warnings.length === 1 ? "difference" : "differences"}
       </h2>
       <p className="mt-1 text-sm text-ink">The runs behind these results differ as listed; some gaps between the figures below may come from these conditions rather than from the tools.</p>
-      <ul className="mt-3 space-y-2">
+      <ul className="mt-3 grid gap-2 md:grid-cols-2">
         {warnings.map((warning) => (
           <li key={warning.condition} data-condition={warning.condition} className="rounded border border-copper/40 bg-paper-raised px-3 py-2 text-sm">
             <strong className="block font-semibold text-ink">{warning.title}</strong>
             <span className="block text-ink-soft">
-              {names.a}: <span className="figure text-ink">{warning.a.join("; ")}</span>
+              {names.a}: <span className="font-semibold text-ink">{warning.a.join("; ")}</span>
             </span>
             <span className="block text-ink-soft">
-              {names.b}: <span className="figure text-ink">{warning.b.join("; ")}</span>
+              {names.b}: <span className="font-semibold text-ink">{warning.b.join("; ")}</span>
             </span>
           </li>
         ))}

@@ -2,7 +2,8 @@ import Link from "next/link";
 import { formatDate } from "@/lib/format";
 import type { PublishedReportRef, PublishedRunContext } from "@/lib/published-results";
 
-export const compareTableClass = "w-full min-w-[36rem] text-left text-sm";
+// Three columns (what, one tool, the other) fit a phone when they wrap, so these tables need no sideways scrolling.
+export const compareTableClass = "w-full text-left text-sm";
 export const compareHeadClass = "bg-paper-sunk text-xs uppercase tracking-wide text-ink-soft";
 
 /** Where a figure came from: the report (and its revision) and the run, linked so a reader can check it. */

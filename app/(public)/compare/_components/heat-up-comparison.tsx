@@ -50,7 +50,7 @@ export function HeatUpComparison({ a, b }: { a: HeatUpSide; b: HeatUpSide }) {
       <p className="mt-3 text-sm text-ink-soft">
         {entrySentence(a)} {entrySentence(b)} Dashed: the setpoint{setpoints.length > 1 ? "s" : ""}.
       </p>
-      <div className="mt-3 overflow-x-auto">
+      <div className="mt-3">
         <table className={compareTableClass}>
           <caption className="sr-only">Heat-up figures of both tools</caption>
           <thead className={compareHeadClass}>

@@ -3,15 +3,12 @@ import { VerdictBadge } from "@/components/report-embeds/verdict-badge";
 import type { QuantityPair } from "@/lib/comparison";
 import type { PublishedResult } from "@/lib/published-results";
 import type { CompareSide } from "@/lib/validations/compare";
-import { compareHeadClass, compareTableClass, SourceLine } from "./compare-table";
+import { SourceLine } from "./compare-table";
 import { UncertaintyBars, type UncertaintyBarRow } from "./uncertainty-bars";
-
-export const sideColorClass: Record<CompareSide, string> = { a: "text-copper", b: "text-verdigris" };
 
 function barRow(side: CompareSide, result: PublishedResult): UncertaintyBarRow {
   return {
-    key: side,
-    colorClass: sideColorClass[side],
+    side,
     value: result.value,
     expandedUncertainty: result.expandedUncertainty,
     rated: result.verdict?.rated ?? null,
@@ -20,33 +17,47 @@ function barRow(side: CompareSide, result: PublishedResult): UncertaintyBarRow {
   };
 }
 
-function ResultCells({ result, unit }: { result: PublishedResult | null; unit: string }) {
-  if (!result) {
-    return (
-      <td colSpan={4} className="px-3 py-2 text-ink-faint">
-        Not measured in a published report
-      </td>
-    );
-  }
-  const { verdict } = result;
-  const decimals = decimalsForUncertainty(result.expandedUncertainty ?? verdict?.expandedUncertainty ?? 0);
+function ResultCard({ side, name, result, unit }: { side: CompareSide; name: string; result: PublishedResult | null; unit: string }) {
+  const verdict = result?.verdict ?? null;
+  const decimals = decimalsForUncertainty(result?.expandedUncertainty ?? verdict?.expandedUncertainty ?? 0);
   return (
-    <>
-      <td className="figure px-3 py-2">{verdict ? `${formatNumber(verdict.rated)} ${unit}` : "—"}</td>
-      <td className="figure px-3 py-2">
-        {formatMeasured(result.value, result.expandedUncertainty, unit)}
-        {verdict?.normalizedTo ? <span className="block text-xs text-ink-faint">normalised to {verdict.normalizedTo} V</span> : null}
-        <SourceLine report={result.report} run={result.run} />
-      </td>
-      <td className="figure px-3 py-2">{verdict ? formatLimits(verdict.lower, verdict.upper, unit, decimals) : "—"}</td>
-      <td className="px-3 py-2">{verdict ? <VerdictBadge result={verdict.result} /> : <span className="text-ink-faint">no rating to judge</span>}</td>
-    </>
+    <div className={`rounded border border-rule border-l-4 p-3 ${side === "a" ? "border-l-copper" : "border-l-verdigris"}`}>
+      <p className="font-semibold">{name}</p>
+      {!result ? (
+        <p className="mt-1 text-sm text-ink-faint">Not measured in a published report</p>
+      ) : (
+        <>
+          <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
+            <dt className="text-ink-soft">Measured ± U (k = 2)</dt>
+            <dd>
+              <span className="figure font-medium">{formatMeasured(result.value, result.expandedUncertainty, unit)}</span>
+              {verdict?.normalizedTo ? <span className="block text-xs text-ink-faint">normalised to {verdict.normalizedTo} V</span> : null}
+            </dd>
+            <dt className="text-ink-soft">Rated</dt>
+            {verdict ? <dd className="figure">{`${formatNumber(verdict.rated)} ${unit}`}</dd> : <dd className="text-ink-faint">no rating to judge against</dd>}
+            {verdict ? (
+              <>
+                <dt className="text-ink-soft">Tolerance limits</dt>
+                <dd className="figure">{formatLimits(verdict.lower, verdict.upper, unit, decimals)}</dd>
+                <dt className="text-ink-soft">Verdict</dt>
+                <dd>
+                  <VerdictBadge result={verdict.result} />
+                </dd>
+              </>
+            ) : null}
+          </dl>
+          <div className="mt-2">
+            <SourceLine report={result.report} run={result.run} />
+          </div>
+        </>
+      )}
+    </div>
   );
 }
 
 /**
  * Each quantity either tool has a published result for: rated against measured ± U (k = 2) with the tolerance and the
- * verdict, as a table, and the same figures drawn as uncertainty bars on one scale.
+ * verdict, the two tools side by side in words and figures, and the same figures drawn as uncertainty bars on one scale.
  */
 export function QuantityComparison({ pairs, names }: { pairs: QuantityPair[]; names: Record<CompareSide, string> }) {
   if (pairs.length === 0) return <p className="text-ink-soft">Neither tool has a published measurement yet.</p>;
@@ -77,32 +88,10 @@ export function QuantityComparison({ pairs, names }: { pairs: QuantityPair[]; na
             <h3 id={`quantity-${pair.kind}`} className="font-serif text-lg">
               {pair.quantity}
             </h3>
-            <div className="mt-2 overflow-x-auto">
-              <table className={compareTableClass}>
-                <caption className="sr-only">
-                  {pair.quantity}: rated against measured for each tool
-                </caption>
-                <thead className={compareHeadClass}>
-                  <tr>
-                    <th scope="col" className="px-3 py-2">Tool</th>
-                    <th scope="col" className="px-3 py-2">Rated</th>
-                    <th scope="col" className="px-3 py-2">Measured ± U (k = 2)</th>
-                    <th scope="col" className="px-3 py-2">Tolerance limits</th>
-                    <th scope="col" className="px-3 py-2">Verdict</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {(["a", "b"] as const).map((side) => (
-                    <tr key={side} className="border-t border-rule align-top">
-                      <th scope="row" className="px-3 py-2 font-semibold">
-                        <span className={`mr-1 inline-block size-2.5 rounded-full ${side === "a" ? "bg-copper" : "bg-verdigris"}`} aria-hidden="true" />
-                        {names[side]}
-                      </th>
-                      <ResultCells result={pair[side]} unit={pair.unit} />
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
+            <div className="mt-3 grid gap-3 md:grid-cols-2">
+              {(["a", "b"] as const).map((side) => (
+                <ResultCard key={side} side={side} name={names[side]} result={pair[side]} unit={pair.unit} />
+              ))}
             </div>
             <div className="mt-3">
               <UncertaintyBars rows={bars} unit={pair.unit} />

@@ -1,3 +1,4 @@
+import { TableScroller } from "@/components/ui/table-scroller";
 import { ConductionStrip } from "@/components/report-embeds/conduction-strip";
 import { formatNumber } from "@/components/report-embeds/figure-format";
 import type { FlickerFigures, PublishedAnalysis } from "@/lib/published-results";
@@ -7,12 +8,13 @@ import { LazyHarmonicPlot } from "./lazy-charts";
 
 export type SupplySide = { name: string; waveform: PublishedAnalysis | null };
 
-type Row<T> = { label: string; value: (figures: T) => string };
+/** A row of figures; `words` marks one whose values are words, set in the text face instead of the figures' one. */
+type Row<T> = { label: string; value: (figures: T) => string; words?: true };
 
 /** Two columns of figures, one per tool, each row read from that tool's analysis; "—" where a tool has none. */
 function SideBySideTable<T>({ caption, rows, a, b, names }: { caption: string; rows: Row<T>[]; a: T | null; b: T | null; names: { a: string; b: string } }) {
   return (
-    <div className="overflow-x-auto">
+    <div>
       <table className={compareTableClass}>
         <caption className="sr-only">{caption}</caption>
         <thead className={compareHeadClass}>
@@ -26,8 +28,8 @@ function SideBySideTable<T>({ caption, rows, a, b, names }: { caption: string; r
           {rows.map((row) => (
             <tr key={row.label} className="border-t border-rule align-top">
               <th scope="row" className="px-3 py-2 font-semibold">{row.label}</th>
-              <td className="figure px-3 py-2">{a === null ? "—" : row.value(a)}</td>
-              <td className="figure px-3 py-2">{b === null ? "—" : row.value(b)}</td>
+              <td className={`${row.words ? "" : "figure "}px-3 py-2`}>{a === null ? "—" : row.value(a)}</td>
+              <td className={`${row.words ? "" : "figure "}px-3 py-2`}>{b === null ? "—" : row.value(b)}</td>
             </tr>
           ))}
         </tbody>
@@ -44,7 +46,7 @@ const firingLabels: Record<string, string> = {
 };
 
 const conductionRows: Row<WaveformFigures>[] = [
-  { label: "Firing", value: ({ halfCycles }) => `${firingLabels[halfCycles.firing] ?? halfCycles.firing}${halfCycles.asymmetric ? ", asymmetric" : ""}` },
+  { label: "Firing", value: ({ halfCycles }) => `${firingLabels[halfCycles.firing] ?? halfCycles.firing}${halfCycles.asymmetric ? ", asymmetric" : ""}`, words: true },
   { label: "Half-cycles conducting", value: ({ halfCycles }) => `${halfCycles.conducting} of ${halfCycles.count}` },
   { label: "Duty", value: ({ halfCycles }) => `${formatNumber(halfCycles.duty * 100, 3)} %` },
   { label: "Switchings per minute", value: ({ halfCycles }) => formatNumber(halfCycles.switchesPerMinute, 3) },
@@ -59,7 +61,7 @@ function harmonicVerdict({ harmonics }: WaveformFigures): string {
 }
 
 const harmonicRows: Row<WaveformFigures>[] = [
-  { label: "Against IEC 61000-3-2", value: harmonicVerdict },
+  { label: "Against IEC 61000-3-2", value: harmonicVerdict, words: true },
   { label: "Fundamental", value: ({ harmonics }) => `${formatNumber(harmonics.fundamentalAmps)} A` },
   { label: "THD", value: ({ harmonics }) => `${formatNumber(harmonics.thdPercent, 3)} %` },
 ];
@@ -147,8 +149,8 @@ export function SupplyEffects({ a, b }: { a: SupplySide; b: SupplySide }) {
         <SideBySideTable caption="Harmonic currents of each tool, in summary" rows={harmonicRows} a={figures.a} b={figures.b} names={names} />
         <details className="text-sm">
           <summary className="cursor-pointer font-semibold">Every order as a table</summary>
-          <div className="mt-2 overflow-x-auto">
-            <table className={compareTableClass}>
+          <TableScroller label="Harmonic currents of every order, both tools" className="mt-2">
+            <table className={`${compareTableClass} min-w-[28rem]`}>
               <caption className="sr-only">Harmonic current and limit of each order, both tools</caption>
               <thead className={compareHeadClass}>
                 <tr>
@@ -175,7 +177,7 @@ export function SupplyEffects({ a, b }: { a: SupplySide; b: SupplySide }) {
                 })}
               </tbody>
             </table>
-          </div>
+          </TableScroller>
         </details>
       </section>
 

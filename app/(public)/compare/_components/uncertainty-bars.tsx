@@ -1,19 +1,20 @@
 import { formatNumber } from "@/components/report-embeds/figure-format";
+import type { CompareSide } from "@/lib/validations/compare";
+
+/** Each tool's marks in its colour: the fill of the dot and bar, and the text colour the whisker ends take. */
+const sideMarks: Record<CompareSide, { fill: string; ends: string }> = {
+  a: { fill: "bg-copper", ends: "text-copper" },
+  b: { fill: "bg-verdigris", ends: "text-verdigris" },
+};
 
 export type UncertaintyBarRow = {
-  key: string;
-  /** The tool's colour, as a class on the marks (fill/stroke via currentColor). */
-  colorClass: string;
+  side: CompareSide;
   value: number;
   expandedUncertainty: number | null;
   rated: number | null;
   lower: number | null;
   upper: number | null;
 };
-
-const width = 640;
-const rowHeight = 34;
-const axisHeight = 22;
 
 /** The span every mark must fit in, padded a little so no mark sits on the frame. */
 function domainOf(rows: readonly UncertaintyBarRow[]): [number, number] {
@@ -33,52 +34,46 @@ function domainOf(rows: readonly UncertaintyBarRow[]): [number, number] {
 
 /**
  * Measured ± U for each tool on one shared scale, against that tool's own rated value (the dark tick) and tolerance
- * band (shaded; a one-sided tolerance runs to the edge). Plain SVG drawn on the server: no script to load. Hidden from
- * screen readers, which read the table beside it.
+ * band (shaded; a one-sided tolerance runs to the edge). Drawn with positioned boxes on the server, so it needs no
+ * script and its labels keep their size at any width. Hidden from screen readers, which read the table beside it.
  */
 export function UncertaintyBars({ rows, unit }: { rows: UncertaintyBarRow[]; unit: string }) {
   if (rows.length === 0) return null;
   const [min, max] = domainOf(rows);
-  const x = (value: number) => ((value - min) / (max - min)) * width;
-  const height = rows.length * rowHeight + axisHeight;
+  const at = (value: number) => `${((value - min) / (max - min)) * 100}%`;
+  const span = (from: number, to: number) => ({ left: at(from), width: `${((to - from) / (max - min)) * 100}%` });
   const ticks = [min + (max - min) * 0.08, (min + max) / 2, max - (max - min) * 0.08];
   return (
-    <svg viewBox={`0 0 ${width} ${height}`} className="h-auto w-full" aria-hidden="true" focusable="false">
-      {rows.map((row, index) => {
-        const top = index * rowHeight;
-        const middle = top + rowHeight / 2;
+    <div aria-hidden="true" className="space-y-1">
+      {rows.map((row) => {
+        const u = row.expandedUncertainty ?? 0;
+        const marks = sideMarks[row.side];
         const bandFrom = row.lower ?? (row.upper !== null ? min : null);
         const bandTo = row.upper ?? (row.lower !== null ? max : null);
-        const u = row.expandedUncertainty ?? 0;
         return (
-          <g key={row.key} className={row.colorClass}>
-            {bandFrom !== null && bandTo !== null ? (
-              <rect x={x(bandFrom)} y={top + 4} width={Math.max(1, x(bandTo) - x(bandFrom))} height={rowHeight - 8} className="fill-verdigris-wash" />
-            ) : null}
-            {row.rated !== null ? <line x1={x(row.rated)} x2={x(row.rated)} y1={top + 2} y2={top + rowHeight - 2} className="stroke-ink" strokeWidth={2} /> : null}
+          <div key={row.side} className="relative h-7">
+            {bandFrom !== null && bandTo !== null ? <div className="absolute inset-y-1 bg-verdigris-wash" style={span(bandFrom, bandTo)} /> : null}
+            {row.rated !== null ? <div className="absolute inset-y-0 w-0.5 -translate-x-1/2 bg-ink" style={{ left: at(row.rated) }} /> : null}
             {u > 0 ? (
-              <g stroke="currentColor" strokeWidth={2}>
-                <line x1={x(row.value - u)} x2={x(row.value + u)} y1={middle} y2={middle} />
-                <line x1={x(row.value - u)} x2={x(row.value - u)} y1={middle - 7} y2={middle + 7} />
-                <line x1={x(row.value + u)} x2={x(row.value + u)} y1={middle - 7} y2={middle + 7} />
-              </g>
+              <div className={`absolute top-1/2 h-3 -translate-y-1/2 border-x-2 border-current ${marks.ends}`} style={span(row.value - u, row.value + u)}>
+                <div className={`absolute inset-x-0 top-1/2 h-0.5 -translate-y-1/2 ${marks.fill}`} />
+              </div>
             ) : null}
-            <circle cx={x(row.value)} cy={middle} r={5} fill="currentColor" />
-          </g>
+            <div className={`absolute top-1/2 size-3 -translate-x-1/2 -translate-y-1/2 rounded-full ${marks.fill}`} style={{ left: at(row.value) }} />
+          </div>
         );
       })}
-      <line x1={0} x2={width} y1={rows.length * rowHeight + 2} y2={rows.length * rowHeight + 2} className="stroke-rule" />
-      {ticks.map((tick, index) => (
-        <text
-          key={tick}
-          x={x(tick)}
-          y={height - 4}
-          textAnchor={index === 0 ? "start" : index === ticks.length - 1 ? "end" : "middle"}
-          className="fill-ink-faint font-mono text-[11px]"
-        >
-          {formatNumber(tick, 3)} {unit}
-        </text>
-      ))}
-    </svg>
+      <div className="relative h-5 border-t border-rule text-xs text-ink-faint">
+        {ticks.map((tick, index) => (
+          <span
+            key={tick}
+            className={`figure absolute top-1 whitespace-nowrap ${index === 0 ? "" : index === ticks.length - 1 ? "-translate-x-full" : "-translate-x-1/2"}`}
+            style={{ left: at(tick) }}
+          >
+            {formatNumber(tick, 3)} {unit}
+          </span>
+        ))}
+      </div>
+    </div>
   );
 }
