@@ -148,10 +148,9 @@ async function measureAnalysis(path: string): Promise<AnalysisTiming> {
   };
 }
 
-/** A fresh process per round, started as this one was (tsx's loader included), so each round is a cold start like the CLI's. */
+/** A fresh process per round, started as `npm run analyze` starts the CLI (one bundle on plain Node), so each round is a cold start like the CLI's. */
 function analysisRound(path: string): AnalysisTiming {
-  const script = process.argv[1] as string;
-  const run = spawnSync(process.execPath, [...process.execArgv, script, "--measure", path], { encoding: "utf8" });
+  const run = spawnSync(process.execPath, [join(import.meta.dirname, "run-bundled.mjs"), process.argv[1] as string, "--measure", path], { encoding: "utf8" });
   if (run.status !== 0) throw new Error(`analysis round failed: ${run.stderr || run.error?.message}`);
   return JSON.parse(run.stdout) as AnalysisTiming;
 }

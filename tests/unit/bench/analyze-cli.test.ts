@@ -9,9 +9,9 @@ const fixtures = join(root, "tests/fixtures/captures");
 const scratch = mkdtempSync(join(tmpdir(), "benchplate-cli-"));
 afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 
-/** The CLI as `npm run --silent analyze` runs it (tsx), without npm's own start-up. */
+/** The CLI as `npm run --silent analyze` runs it (one bundle on plain Node), without npm's own start-up. */
 function analyze(...args: string[]) {
-  const run = spawnSync(process.execPath, ["--import", "tsx", join(root, "scripts/analyze.ts"), ...args], { cwd: root, encoding: "utf8" });
+  const run = spawnSync(process.execPath, [join(root, "scripts/run-bundled.mjs"), join(root, "scripts/analyze.ts"), ...args], { cwd: root, encoding: "utf8" });
   return { status: run.status, stdout: run.stdout, stderr: run.stderr };
 }
 
