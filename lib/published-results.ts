@@ -100,10 +100,11 @@ function publishedVerdict(value: unknown): PublishedVerdict | null {
 
 const kindOrder = new Map<MeasurementKind, number>(measurementKinds.map((kind, index) => [kind, index]));
 
-/** Quantity in the catalogue's order, then the oldest test first, then the older revision's report first. */
+/** Quantity in the catalogue's order, retracted results after the standing ones, then the oldest test and revision first. */
 export function compareResults(a: PublishedResult, b: PublishedResult): number {
   return (
     (kindOrder.get(a.kind) ?? 0) - (kindOrder.get(b.kind) ?? 0) ||
+    Number(a.report.retracted) - Number(b.report.retracted) ||
     a.run.testedOn.localeCompare(b.run.testedOn) ||
     a.report.publishedAt.localeCompare(b.report.publishedAt) ||
     a.report.slug.localeCompare(b.report.slug)

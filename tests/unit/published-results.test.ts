@@ -92,6 +92,12 @@ describe("groupResultsByQuantity", () => {
       ["second-look", 705],
     ]);
   });
+
+  it("puts a retracted report's results after the standing ones of the same quantity", () => {
+    const earlier = frozenContent({ runs: [frozenRun({ testedOn: "2026-01-05" })], measurements: [frozenMeasurement({ value: 640 })] });
+    const rows = [...flattenPublishedResults(publishedSource(earlier, { slug: "withdrawn", status: "retracted" })), ...flattenPublishedResults(publishedSource())];
+    expect(groupResultsByQuantity(rows)[0]?.results.map((row) => row.report.slug)).toEqual(["aeris-720-on-the-desk", "withdrawn"]);
+  });
 });
 
 describe("listPublishedAnalyses", () => {
