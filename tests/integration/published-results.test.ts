@@ -1,4 +1,3 @@
-import { randomUUID } from "node:crypto";
 import { and, eq, inArray } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
@@ -6,7 +5,8 @@ import { listPublishedAnalysesForTool, listPublishedResultsForReport, listPublis
 import { reportRevisions, reports, reportTools, tools, type FrozenReportContent, type ReportStatus, type RevisionStatus } from "@/db/schema";
 import { measurementKindInfo } from "@/lib/measurement-kinds";
 import { createAccount } from "../support/factories";
-import { frozenAnalysis, frozenContent, frozenMeasurement, frozenTool } from "../support/frozen-content";
+import { frozenContentForTool, frozenMeasurement } from "../support/frozen-content";
+import { fixtureRetractionReason, insertReportWithRevisions } from "../support/published-fixtures";
 import { createTool } from "../support/report-fixtures";
 
 // The demo seed publishes the Aeris report through the desk and corrects it in a second revision; readers must see
@@ -28,41 +28,18 @@ let tool: Awaited<ReturnType<typeof createTool>>;
 let authorId: string;
 
 function contentFor(value: number): FrozenReportContent {
-  const testTool = frozenTool({ id: tool.id, slug: tool.slug, name: tool.name });
-  return frozenContent({
-    title: `Report with ${value} W`,
-    tools: [testTool],
-    analyses: [frozenAnalysis({ toolId: tool.id, toolSlug: tool.slug, toolName: tool.name })],
-    measurements: [frozenMeasurement({ value })],
-  });
+  return frozenContentForTool(tool, { title: `Report with ${value} W`, measurements: [frozenMeasurement({ value })] });
 }
 
-/** A report on the test tool with the given revisions (number → status and the power value its content holds). */
-async function insertReport(status: ReportStatus, revisions: { number: number; status: RevisionStatus; value: number }[], current: number | null) {
-  const slug = `results-${status}-${randomUUID().slice(0, 8)}`;
-  const [report] = await db
-    .insert(reports)
-    .values({ slug, title: slug, authorId, status, retractionReason: status === "retracted" ? "The clamp's scale was set wrong." : null })
-    .returning({ id: reports.id });
-  await db.insert(reportTools).values({ reportId: report!.id, toolId: tool.id, position: 0 });
-  const inserted = await db
-    .insert(reportRevisions)
-    .values(
-      revisions.map((revision) => ({
-        reportId: report!.id,
-        number: revision.number,
-        kind: revision.number === 1 ? ("original" as const) : ("correction" as const),
-        status: revision.status,
-        changeNote: `Revision ${revision.number}`,
-        bodyMdx: "Body.",
-        content: contentFor(revision.value),
-        publishedAt: revision.status === "published" ? new Date(`2026-12-0${revision.number}T09:00:00Z`) : null,
-      })),
-    )
-    .returning({ id: reportRevisions.id, number: reportRevisions.number });
-  const currentId = inserted.find((row) => row.number === current)?.id ?? null;
-  await db.update(reports).set({ publishedRevisionId: currentId }).where(eq(reports.id, report!.id));
-  return slug;
+function insertReport(status: ReportStatus, revisions: { number: number; status: RevisionStatus; value: number }[], current: number | null) {
+  return insertReportWithRevisions({
+    toolId: tool.id,
+    authorId,
+    status,
+    revisions,
+    current,
+    contentOf: (number) => contentFor(revisions.find((revision) => revision.number === number)!.value),
+  }).then(({ slug }) => slug);
 }
 
 let corrected: string;
@@ -118,7 +95,7 @@ describe("listPublishedResultsForTool", () => {
         [retracted, 1, 711, true],
       ].sort(),
     );
-    expect(rows.find((row) => row.report.retracted)?.report.retractionReason).toBe("The clamp's scale was set wrong.");
+    expect(rows.find((row) => row.report.retracted)?.report.retractionReason).toBe(fixtureRetractionReason);
   });
 
   it("lists every seeded result on the seeded tool, each from its report's current revision", async () => {
@@ -143,7 +120,7 @@ describe("listPublishedResultsForTool", () => {
 describe("listPublishedAnalysesForTool", () => {
   it("gives the cited analyses of current revisions with their figures", async () => {
     const analyses = await listPublishedAnalysesForTool({ toolSlug: tool.slug });
-    expect(analyses.map((analysis) => analysis.report.slug).sort()).toEqual([corrected, retracted].sort());
+    expect(analyses.map((analysis) => analysis.report.slug).sort()).toEqual([corrected, corrected, retracted, retracted].sort());
     const waveform = analyses.find((analysis) => analysis.captureKind === "waveform");
     expect(waveform?.waveform?.current.rms).toBeGreaterThan(0);
     expect(waveform?.flicker?.pst).toBe(1.72);

@@ -187,3 +187,14 @@ export function publishedSource(
     content,
   };
 }
+
+/** The default content with a real tool in place of the made-up one, so queries and pages find it by the tool's slug. */
+export function frozenContentForTool(tool: { id: string; slug: string; name: string }, overrides: Partial<FrozenReportContent> = {}): FrozenReportContent {
+  const base = frozenContent();
+  return frozenContent({
+    tools: [frozenTool({ id: tool.id, slug: tool.slug, name: tool.name })],
+    runs: base.runs.map((run) => ({ ...run, toolName: tool.name })),
+    analyses: base.analyses.map((analysis) => ({ ...analysis, toolId: tool.id, toolSlug: tool.slug, toolName: tool.name })),
+    ...overrides,
+  });
+}

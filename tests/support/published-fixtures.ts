@@ -1,0 +1,60 @@
+import { randomUUID } from "node:crypto";
+import { eq } from "drizzle-orm";
+import { db } from "@/db";
+import { reportRevisions, reports, reportTools, type FrozenReportContent, type ReportStatus, type RevisionStatus } from "@/db/schema";
+
+// Reports in a given editorial state written straight to the database with frozen content from tests/support/
+// frozen-content, for tests of what readers see (the desk's flows that make them are tested on their own).
+
+export const fixtureRetractionReason = "The clamp's scale was set wrong.";
+
+/**
+ * A report on one tool with the given revisions, `current` being the number readers see (null: none yet). Each
+ * revision's content comes from `contentOf`, so revisions can differ in their figures.
+ */
+export async function insertReportWithRevisions({
+  toolId,
+  authorId,
+  status,
+  revisions,
+  current,
+  contentOf,
+}: {
+  toolId: string;
+  authorId: string;
+  status: ReportStatus;
+  revisions: { number: number; status: RevisionStatus }[];
+  current: number | null;
+  contentOf: (number: number) => FrozenReportContent;
+}): Promise<{ id: string; slug: string }> {
+  const slug = `results-${status}-${randomUUID().slice(0, 8)}`;
+  const [report] = await db
+    .insert(reports)
+    .values({ slug, title: slug, authorId, status, retractionReason: status === "retracted" ? fixtureRetractionReason : null, retractedAt: status === "retracted" ? new Date() : null })
+    .returning({ id: reports.id });
+  const reportId = report!.id;
+  await db.insert(reportTools).values({ reportId, toolId, position: 0 });
+  if (revisions.length === 0) return { id: reportId, slug };
+  const inserted = await db
+    .insert(reportRevisions)
+    .values(
+      revisions.map((revision) => ({
+        reportId,
+        number: revision.number,
+        kind: revision.number === 1 ? ("original" as const) : ("correction" as const),
+        status: revision.status,
+        changeNote: revision.number === 1 ? "First publication." : `Correction ${revision.number}.`,
+        bodyMdx: "Measured on the bench.",
+        compiledMdx: null,
+        content: contentOf(revision.number),
+        publishedAt: revision.status === "published" ? new Date(Date.UTC(2026, 11, revision.number, 9)) : null,
+      })),
+    )
+    .returning({ id: reportRevisions.id, number: reportRevisions.number });
+  const currentId = inserted.find((row) => row.number === current)?.id ?? null;
+  await db
+    .update(reports)
+    .set({ publishedRevisionId: currentId, firstPublishedAt: currentId ? new Date(Date.UTC(2026, 11, 1, 9)) : null })
+    .where(eq(reports.id, reportId));
+  return { id: reportId, slug };
+}
