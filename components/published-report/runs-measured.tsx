@@ -1,10 +1,10 @@
-import type { FrozenRun } from "@/db/schema";
+import type { FrozenRun, RunConditions } from "@/db/schema";
 import { isCalibrationOverdue } from "@/lib/calibration";
 
 const sourceWords = { bought: "bought at retail", loaned: "on loan", given: "given to the reviewer" } as const;
 
-function conditionLines(run: FrozenRun): [string, string][] {
-  const { conditions } = run;
+/** A run's supply and conditions as label and value, in the order the protocol states them. */
+export function conditionLines(conditions: RunConditions): [string, string][] {
   const lines: [string, string][] = [
     ["Supply", `${conditions.supplyVoltage} V ${conditions.supplyFrequencyHz} Hz nominal${conditions.measuredSupplyVoltage === null ? "" : `, ${conditions.measuredSupplyVoltage} V measured`}`],
     ["Ambient", `${conditions.ambientC} °C`],
@@ -35,7 +35,7 @@ export function RunsMeasured({ runs }: { runs: FrozenRun[] }) {
           </p>
           <div className="mt-3 grid gap-4 md:grid-cols-2">
             <dl className="divide-y divide-rule rounded border border-rule">
-              {conditionLines(run).map(([label, value]) => (
+              {conditionLines(run.conditions).map(([label, value]) => (
                 <div key={label} className="grid grid-cols-2 gap-2 px-3 py-1.5">
                   <dt className="text-ink-soft">{label}</dt>
                   <dd className="figure">{value}</dd>

@@ -1,14 +1,30 @@
 import type { Metadata } from "next";
+import { unstable_cache } from "next/cache";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { FigureList } from "@/components/figure-list";
 import { ReportCards } from "@/components/published-report/report-cards";
 import { getToolBySlug } from "@/db/queries/catalogue";
 import { listReadableReports } from "@/db/queries/editorial";
+import { listPublishedResultsForTool } from "@/db/queries/published-results";
 import { listToolPhotos } from "@/db/queries/tool-photos";
+import { publishedListsMaxAgeSeconds, publishedReportsCacheTag } from "@/lib/editorial";
 import { formatFrequencies, formatOptional, formatPrice, formatRange, formatRatedVoltage } from "@/lib/format";
 import { toolCategoryLabels } from "@/lib/validations/catalogue";
 import { applianceTypeLabels, motorShareLabel } from "@/lib/validations/tool";
+import { PublishedResultsTable } from "./_components/published-results-table";
 import { ToolPhotoGallery } from "./_components/tool-photo-gallery";
+
+/**
+ * The tool's published results change only when a report on it is published, corrected or retracted: the desk's
+ * actions clear the published-reports tag on each, and the age limit covers revisions the worker makes live.
+ */
+function loadToolResults(toolSlug: string) {
+  return unstable_cache(() => listPublishedResultsForTool({ toolSlug }), ["tool-results", toolSlug], {
+    tags: [publishedReportsCacheTag],
+    revalidate: publishedListsMaxAgeSeconds,
+  })();
+}
 
 export async function generateMetadata({ params }: PageProps<"/tools/[slug]">): Promise<Metadata> {
   const tool = await getToolBySlug({ slug: (await params).slug });
@@ -17,7 +33,12 @@ export async function generateMetadata({ params }: PageProps<"/tools/[slug]">): 
 
 export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
   const { slug } = await params;
-  const [tool, photos, reports] = await Promise.all([getToolBySlug({ slug }), listToolPhotos({ toolSlug: slug }), listReadableReports({ toolSlug: slug })]);
+  const [tool, photos, reports, results] = await Promise.all([
+    getToolBySlug({ slug }),
+    listToolPhotos({ toolSlug: slug }),
+    listReadableReports({ toolSlug: slug }),
+    loadToolResults(slug),
+  ]);
   if (!tool) notFound();
   const ratings: [string, string][] = [
     ["Rated power input", `${tool.ratedPowerW} W`],
@@ -38,6 +59,11 @@ export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
           {tool.maker} {tool.model}
         </h1>
         <p className="max-w-2xl font-serif text-lg text-ink-soft">{tool.summary}</p>
+        <p>
+          <Link href={`/compare?a=${encodeURIComponent(tool.slug)}`} className="font-semibold text-copper underline underline-offset-4 hover:text-copper-deep">
+            Compare with another tool
+          </Link>
+        </p>
       </header>
       {photos.length ? <ToolPhotoGallery photos={photos} /> : null}
       <section aria-labelledby="ratings-heading" className="max-w-2xl">
@@ -62,6 +88,7 @@ export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
           </ul>
         </section>
       ) : null}
+      <PublishedResultsTable results={results} />
       {reports.length ? (
         <section aria-labelledby="reports-heading" className="space-y-3">
           <h2 id="reports-heading" className="font-serif text-2xl">
