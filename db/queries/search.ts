@@ -1,5 +1,5 @@
 import "server-only";
-import { and, count, desc, eq, inArray, sql } from "drizzle-orm";
+import { and, count, desc, eq, inArray, sql, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { reportRevisions, reports, searchableBodyText } from "@/db/schema";
 import { matchEnd, matchStart } from "@/lib/search-snippet";
@@ -10,6 +10,12 @@ export const reportSearchPageSize = 10;
 // The reader's words go to PostgreSQL as a bound parameter and through websearch_to_tsquery, which accepts any text
 // (quotes, or, -word) without a syntax error, so nothing typed can change the statement or make it fail.
 const englishQuery = (q: string) => sql`websearch_to_tsquery('english', ${q})`;
+
+/**
+ * The body as the snippet shows it: the searchable text, with each Markdown heading ended by a dash so that headings
+ * and paragraphs do not run together into one sentence once the line breaks are gone.
+ */
+const snippetText = (body: SQL) => searchableBodyText(sql`regexp_replace(${body}, '^(#{1,6}[ \\t]+[^\\n]*)$', '\\1 —', 'gn')`);
 
 const snippetOptions = `StartSel=${matchStart}, StopSel=${matchEnd}, MaxFragments=2, MinWords=12, MaxWords=30, FragmentDelimiter=" … "`;
 const titleOptions = `StartSel=${matchStart}, StopSel=${matchEnd}, HighlightAll=true`;
@@ -64,7 +70,7 @@ export async function searchPublishedReports({ q, page }: ReportSearch) {
         toolNames: ranked.toolNames,
         title: ranked.title,
         markedTitle: sql<string>`ts_headline('english', ${ranked.title}, ${query}, ${titleOptions})`,
-        snippet: sql<string>`ts_headline('english', ${searchableBodyText(sql`${ranked.bodyMdx}`)}, ${query}, ${snippetOptions})`,
+        snippet: sql<string>`ts_headline('english', ${snippetText(sql`${ranked.bodyMdx}`)}, ${query}, ${snippetOptions})`,
       })
       .from(ranked)
       .orderBy(desc(ranked.rank), desc(ranked.revisedAt), desc(ranked.slug)),

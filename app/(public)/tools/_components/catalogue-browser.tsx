@@ -43,10 +43,17 @@ function draftOf(query: CatalogueQuery): FilterDraft {
   };
 }
 
-/** The address's query, or the whole catalogue with the reasons when the address does not parse. */
-function readAddress(params: URLSearchParams): { query: CatalogueQuery; problems: FieldErrors } {
+const filterNames = ["q", "category", "maker", "minPowerW", "maxPowerW", "voltage", "published"] as const satisfies (keyof FilterDraft)[];
+
+/**
+ * The address's query, or the whole catalogue when the address does not parse: then the form shows what the address
+ * said, with the reasons beside the fields (and above them for sort and page, which have no field).
+ */
+function readAddress(params: URLSearchParams): { query: CatalogueQuery; draft: FilterDraft; problems: FieldErrors } {
   const parsed = catalogueQuerySchema.safeParse(Object.fromEntries(params.entries()));
-  return parsed.success ? { query: parsed.data, problems: {} } : { query: catalogueQuerySchema.parse({}), problems: fieldErrorsOf(parsed.error) };
+  if (parsed.success) return { query: parsed.data, draft: draftOf(parsed.data), problems: {} };
+  const draft = Object.fromEntries(filterNames.map((name) => [name, params.get(name) ?? ""])) as FilterDraft;
+  return { query: catalogueQuerySchema.parse({}), draft, problems: fieldErrorsOf(parsed.error) };
 }
 
 function isSort(id: string): id is CatalogueSort {
@@ -113,13 +120,13 @@ export function CatalogueBrowser({ initial, makers }: { initial: { key: string; 
   const [busy, setBusy] = useState(false);
   const [failure, setFailure] = useState<string | null>(null);
   const [serverProblems, setServerProblems] = useState<FieldErrors>({});
-  const [draft, setDraft] = useState(() => draftOf(query));
+  const [draft, setDraft] = useState(address.draft);
   const [draftProblems, setDraftProblems] = useState<FieldErrors>({});
   const [draftKey, setDraftKey] = useState(wantedKey);
   // Back and Forward change the address under the form: show what that address asks for.
   if (draftKey !== wantedKey) {
     setDraftKey(wantedKey);
-    setDraft(draftOf(query));
+    setDraft(address.draft);
     setDraftProblems({});
   }
 
@@ -195,12 +202,20 @@ export function CatalogueBrowser({ initial, makers }: { initial: { key: string; 
   }
 
   const problems = { ...address.problems, ...serverProblems, ...draftProblems };
+  const addressProblems = Object.entries(address.problems)
+    .filter(([name]) => !(filterNames as readonly string[]).includes(name))
+    .flatMap(([, messages]) => messages);
   const order = query.order ?? defaultSortOrder(query.sort);
   const { result } = loaded;
   const filtered = Object.values(draftOf(query)).some(Boolean);
 
   return (
     <div className="space-y-4">
+      {addressProblems.length ? (
+        <p className="rounded border border-copper bg-copper-wash px-3 py-2 text-sm text-copper-deep">
+          Part of this address could not be read, so the whole catalogue is shown: {addressProblems.join(" ")}
+        </p>
+      ) : null}
       <form role="search" aria-label="Filter the catalogue" action="/tools" method="get" onSubmit={onSubmit} className="space-y-3 rounded border border-rule bg-paper-sunk p-4">
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
           <TextField label="Maker or model" name="q" type="search" value={draft.q} onChange={(event) => type("q", event.target.value)} errors={problems} />
@@ -228,22 +243,24 @@ export function CatalogueBrowser({ initial, makers }: { initial: { key: string; 
               </option>
             ))}
           </SelectField>
-          <TextField
-            label="Rated power from (W)"
-            name="minPowerW"
-            inputMode="numeric"
-            value={draft.minPowerW}
-            onChange={(event) => type("minPowerW", event.target.value)}
-            errors={problems}
-          />
-          <TextField
-            label="Rated power up to (W)"
-            name="maxPowerW"
-            inputMode="numeric"
-            value={draft.maxPowerW}
-            onChange={(event) => type("maxPowerW", event.target.value)}
-            errors={problems}
-          />
+          <div className="grid grid-cols-2 gap-3 sm:col-span-2">
+            <TextField
+              label="Rated power from (W)"
+              name="minPowerW"
+              inputMode="numeric"
+              value={draft.minPowerW}
+              onChange={(event) => type("minPowerW", event.target.value)}
+              errors={problems}
+            />
+            <TextField
+              label="Rated power up to (W)"
+              name="maxPowerW"
+              inputMode="numeric"
+              value={draft.maxPowerW}
+              onChange={(event) => type("maxPowerW", event.target.value)}
+              errors={problems}
+            />
+          </div>
           <SelectField label="Published results" name="published" value={draft.published} onChange={(event) => choose("published", event.target.value)} errors={problems}>
             <option value="">Tested or not</option>
             {publishedResultChoices.map((choice) => (
