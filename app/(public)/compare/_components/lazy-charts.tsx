@@ -2,19 +2,11 @@
 
 import dynamic from "next/dynamic";
 
-// The charting library is most of a chart's weight: it loads in the browser after the page, whose figures and tables
-// are already server-rendered, so the first load stays light.
-
-function ChartPlaceholder({ height }: { height: string }) {
-  return <div className={`${height} w-full animate-pulse rounded bg-paper-sunk`} />;
-}
-
+// The charting library is most of a chart's weight: the overlay loads it in the browser after the page, whose figures
+// and tables are already server-rendered, so the first load stays light. (Single-tool drawings come from
+// components/report-embeds/lazy-plots.tsx.)
 export const LazyHeatUpOverlay = dynamic(() => import("./heat-up-overlay").then((module) => module.HeatUpOverlay), {
   ssr: false,
-  loading: () => <ChartPlaceholder height="h-72" />,
-});
-
-export const LazyHarmonicPlot = dynamic(() => import("@/components/report-embeds/harmonic-chart").then((module) => module.HarmonicPlot), {
-  ssr: false,
-  loading: () => <ChartPlaceholder height="h-64" />,
+  // Holds the drawing's height, so nothing below jumps when it arrives.
+  loading: () => <div className="h-72 w-full rounded bg-paper-sunk/60 print:hidden" />,
 });

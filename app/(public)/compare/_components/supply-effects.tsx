@@ -1,10 +1,10 @@
 import { TableScroller } from "@/components/ui/table-scroller";
 import { ConductionStrip } from "@/components/report-embeds/conduction-strip";
 import { formatNumber } from "@/components/report-embeds/figure-format";
+import { LazyHarmonicPlot } from "@/components/report-embeds/lazy-plots";
 import type { FlickerFigures, PublishedAnalysis } from "@/lib/published-results";
 import type { WaveformFigures } from "@/lib/report-embeds";
 import { compareHeadClass, compareTableClass, SourceLine } from "./compare-table";
-import { LazyHarmonicPlot } from "./lazy-charts";
 
 export type SupplySide = { name: string; waveform: PublishedAnalysis | null };
 
