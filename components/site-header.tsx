@@ -35,7 +35,7 @@ export async function SiteHeader() {
             </Link>
           ))}
         </nav>
-        <div className="ml-auto flex items-center gap-4 text-sm">
+        <div className="ml-auto flex items-center gap-4 text-sm print:hidden">
           {user ? (
             <>
               <Link href="/account" className="hover:text-copper">
