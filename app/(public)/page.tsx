@@ -99,19 +99,16 @@ export default async function HomePage() {
           ) : (
             <ul className="divide-y divide-rule rounded border border-rule bg-paper-raised">
               {tools.map((tool) => (
-                <li key={tool.slug} className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1 px-4 py-3">
-                  <div className="min-w-0">
-                    <h3 className="font-serif text-lg">
-                      <Link href={`/tools/${tool.slug}`} className="hover:text-copper">
-                        {tool.maker} {tool.model}
-                      </Link>
-                    </h3>
-                    <p className="text-xs uppercase tracking-wide text-ink-faint">{toolCategoryLabels[tool.category]}</p>
-                  </div>
+                <li key={tool.slug} className="space-y-1 px-4 py-3">
+                  <h3 className="font-serif text-lg">
+                    <Link href={`/tools/${tool.slug}`} className="hover:text-copper">
+                      {tool.maker} {tool.model}
+                    </Link>
+                  </h3>
                   <p className="text-sm text-ink-soft">
-                    {tool.newestResultAt ? <>Results of {formatDate(new Date(tool.newestResultAt))}</> : null}
-                    {" · "}
-                    <span className="figure">{tool.publishedReports}</span> {tool.publishedReports === 1 ? "report" : "reports"}
+                    {toolCategoryLabels[tool.category]}
+                    {tool.newestResultAt ? ` · results of ${formatDate(new Date(tool.newestResultAt))}` : ""} · <span className="figure">{tool.publishedReports}</span>{" "}
+                    {tool.publishedReports === 1 ? "report" : "reports"}
                   </p>
                 </li>
               ))}

@@ -13,7 +13,7 @@ export function VerdictSummary({ results, retracted }: { results: readonly unkno
       <span className={retracted ? "font-semibold text-copper-deep" : "text-ink-soft"}>{retracted ? "Withdrawn verdicts:" : "Verdicts:"}</span>
       <ul className="flex flex-wrap gap-2">
         {counts.map(({ result, count }) => (
-          <li key={result} className={`flex items-center gap-1 ${retracted ? "line-through decoration-ink" : ""}`}>
+          <li key={result} className="flex items-center gap-1">
             <VerdictBadge result={result} />
             <span className="figure text-ink-soft">
               <span aria-hidden="true">×</span>
