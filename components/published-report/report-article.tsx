@@ -18,19 +18,25 @@ export function ReportArticle({
   body,
   meta,
   notices,
+  retracted = false,
+  downloads,
 }: {
   content: FrozenReportContent;
   embeds: ReportEmbeds;
   body: ReactNode;
   meta: ReactNode;
   notices?: ReactNode;
+  /** A retracted report keeps its figures for the record; every verdict says it was withdrawn. */
+  retracted?: boolean;
+  /** The measurements as open data, offered right under the verdicts they download. */
+  downloads?: ReactNode;
 }) {
   const judged = Object.values(embeds.analyses).filter((analysis) => analysis.verdicts.length > 0);
   const cautions = [...new Set(content.runs.map((run) => run.protocol.safetyCautions.trim()).filter(Boolean))];
   return (
     <article className="space-y-8">
       <header className="max-w-3xl space-y-3">
-        <p className="text-sm font-semibold uppercase tracking-widest text-copper">Bench report</p>
+        <p className="text-sm font-semibold uppercase tracking-widest text-copper">{retracted ? "Retracted bench report" : "Bench report"}</p>
         <h1 className="font-serif text-4xl sm:text-display">{content.title}</h1>
         <p className="text-ink-soft">
           By {content.author.name} ·{" "}
@@ -50,8 +56,14 @@ export function ReportArticle({
 
       <section aria-labelledby="verdicts-heading" className="space-y-2">
         <h2 id="verdicts-heading" className="font-serif text-2xl">
-          Every verdict
+          Every verdict{retracted ? " (retracted)" : ""}
         </h2>
+        {retracted ? (
+          <p role="note" className="max-w-3xl border-l-4 border-verdict-above bg-copper-wash px-4 py-3 text-sm font-semibold text-copper-deep">
+            Retracted with the report: the results and verdicts below are kept for the record only. Do not rely on them or compare them with other
+            tools.
+          </p>
+        ) : null}
         <p className="max-w-3xl text-sm text-ink-soft">
           Each rating judged with the measured value, its expanded uncertainty (k = 2), the tolerance and the decision rule, exactly as they stood when this
           revision was approved.
@@ -62,7 +74,17 @@ export function ReportArticle({
         {embeds.tools.map((tool) => (
           <SpecTable key={tool.slug} tool={tool} />
         ))}
+        <ul className="space-y-1 text-sm">
+          {embeds.tools.map((tool) => (
+            <li key={tool.slug}>
+              <Link href={`/tools/${tool.slug}#results-heading`} className="text-copper underline underline-offset-4 hover:text-copper-deep">
+                Every published result for {tool.name}, across reports and protocol versions
+              </Link>
+            </li>
+          ))}
+        </ul>
       </section>
+      {downloads}
 
       <RunsMeasured runs={content.runs} />
 

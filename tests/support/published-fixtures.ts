@@ -2,11 +2,14 @@ import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { db } from "@/db";
 import { reportRevisions, reports, reportTools, type FrozenReportContent, type ReportStatus, type RevisionStatus } from "@/db/schema";
+import { compileForStorage } from "@/lib/mdx/stored";
 
 // Reports in a given editorial state written straight to the database with frozen content from tests/support/
 // frozen-content, for tests of what readers see (the desk's flows that make them are tested on their own).
 
 export const fixtureRetractionReason = "The clamp's scale was set wrong.";
+
+const fixtureBody = "## In short\n\nMeasured on the bench.\n\n<SpecTable />\n";
 
 /**
  * A report on one tool with the given revisions, `current` being the number readers see (null: none yet). Each
@@ -44,8 +47,8 @@ export async function insertReportWithRevisions({
         kind: revision.number === 1 ? ("original" as const) : ("correction" as const),
         status: revision.status,
         changeNote: revision.number === 1 ? "First publication." : `Correction ${revision.number}.`,
-        bodyMdx: "Measured on the bench.",
-        compiledMdx: null,
+        bodyMdx: fixtureBody,
+        compiledMdx: compileForStorage(fixtureBody).stored,
         content: contentOf(revision.number),
         publishedAt: revision.status === "published" ? new Date(Date.UTC(2026, 11, revision.number, 9)) : null,
       })),

@@ -33,6 +33,7 @@ export default async function ReportPage({ params }: PageProps<"/reports/[slug]"
         content={revision.content}
         embeds={shown.embeds}
         body={shown.body}
+        retracted={report.status === "retracted"}
         meta={
           <>
             Published {report.firstPublishedAt ? formatDate(report.firstPublishedAt) : ""}

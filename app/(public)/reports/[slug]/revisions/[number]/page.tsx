@@ -27,6 +27,7 @@ export default async function ReportRevisionPage({ params }: PageProps<"/reports
         content={shown.revision.content}
         embeds={shown.embeds}
         body={shown.body}
+        retracted={report.status === "retracted"}
         meta={<>Revision {entry.number}, published {formatDate(new Date(shown.revision.publishedAt))}</>}
         notices={
           <>

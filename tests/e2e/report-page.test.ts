@@ -1,0 +1,100 @@
+import type { Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { formatMeasured } from "@/components/report-embeds/figure-format";
+import { listPublishedResultsForReport } from "@/db/queries/published-results";
+import { createAccount } from "../support/factories";
+import { frozenContentForTool, frozenMeasurement, powerVerdict } from "../support/frozen-content";
+import { fixtureRetractionReason, insertReportWithRevisions } from "../support/published-fixtures";
+import { createTool } from "../support/report-fixtures";
+import { DESKTOP_VIEWPORT, launchBrowser, PHONE_VIEWPORT, url, type E2eBrowser } from "../support/e2e";
+
+// A corrected report shows its current revision's figures with the correction notice and the history; a retracted
+// one stays readable with its reason, every verdict marked withdrawn. Figures are checked against the query readers'
+// downloads and the tool page use, so the page and the data say the same.
+
+let tool: Awaited<ReturnType<typeof createTool>>;
+let corrected: string;
+let retracted: string;
+
+const firstValue = 655.5;
+const correctedValue = 702.25;
+
+const squash = (text: string) => text.replace(/\s+/g, " ");
+
+beforeAll(async () => {
+  const [made, author] = await Promise.all([createTool(), createAccount({ role: "reviewer" })]);
+  tool = made;
+  const contentWith = (value: number) =>
+    frozenContentForTool(tool, { measurements: [frozenMeasurement({ value, verdict: powerVerdict({ measured: value - 7, normalized: value }) })] });
+  ({ slug: corrected } = await insertReportWithRevisions({
+    toolId: tool.id,
+    authorId: author.id,
+    status: "published",
+    revisions: [
+      { number: 1, status: "published" },
+      { number: 2, status: "published" },
+    ],
+    current: 2,
+    contentOf: (number) => contentWith(number === 1 ? firstValue : correctedValue),
+  }));
+  ({ slug: retracted } = await insertReportWithRevisions({
+    toolId: tool.id,
+    authorId: author.id,
+    status: "retracted",
+    revisions: [{ number: 1, status: "published" }],
+    current: 1,
+    contentOf: () => contentWith(firstValue),
+  }));
+});
+
+describe.each([
+  ["phone", PHONE_VIEWPORT],
+  ["desktop", DESKTOP_VIEWPORT],
+] as const)("the report page at %s width", (_name, viewport) => {
+  let browser: E2eBrowser;
+  let page: Page;
+
+  beforeAll(async () => {
+    browser = await launchBrowser({ viewport });
+    page = await browser.newPage();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  async function articleText() {
+    return squash(await page.locator("main").innerText());
+  }
+
+  it("shows a corrected report's current figures with the correction, the history, the runs and the links to its tool", async () => {
+    await page.goto(url(`/reports/${corrected}`));
+    const [power] = (await listPublishedResultsForReport({ slug: corrected })).filter((result) => result.kind === "power_input_full_demand");
+    expect(power?.value).toBe(correctedValue);
+    const text = await articleText();
+    expect(text).toContain(squash(formatMeasured(power!.value, power!.expandedUncertainty, power!.unit)));
+    expect(text).not.toContain(squash(formatMeasured(firstValue, power!.expandedUncertainty, power!.unit)));
+    expect(await page.getByRole("note", { name: "Correction" }).innerText()).toContain("Correction 2.");
+    expect(text).toContain(`Protocol: ${power!.run.protocol.name}, version ${power!.run.protocol.version}`);
+    expect(text).toMatch(/Revision 1: Original/);
+    expect(text).toMatch(/Revision 2: Correction/);
+    expect(await page.getByRole("link", { name: tool.name, exact: true }).getAttribute("href")).toBe(`/tools/${tool.slug}`);
+    expect(await page.getByRole("link", { name: `Every published result for ${tool.name}, across reports and protocol versions` }).getAttribute("href")).toBe(
+      `/tools/${tool.slug}#results-heading`,
+    );
+    expect(await page.getByRole("heading", { name: "Safety" }).isVisible()).toBe(true);
+    expect(await page.getByRole("heading", { name: "Every verdict", exact: true }).isVisible()).toBe(true);
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+  });
+
+  it("keeps a retracted report readable with its reason, every verdict marked withdrawn", async () => {
+    await page.goto(url(`/reports/${retracted}`));
+    expect(await page.getByRole("alert").filter({ hasText: fixtureRetractionReason }).isVisible()).toBe(true);
+    expect(await page.getByText("Retracted bench report").isVisible()).toBe(true);
+    expect(await page.getByRole("heading", { name: "Every verdict (retracted)" }).isVisible()).toBe(true);
+    expect(await page.getByRole("note").filter({ hasText: "Retracted with the report" }).isVisible()).toBe(true);
+    const [power] = await listPublishedResultsForReport({ slug: retracted });
+    expect(power?.report.retracted).toBe(true);
+    expect(await articleText()).toContain(squash(formatMeasured(power!.value, power!.expandedUncertainty, power!.unit)));
+  });
+});
