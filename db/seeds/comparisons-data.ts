@@ -1,8 +1,15 @@
-import type { DemoRun } from "./bench-runs-data";
+import { demoRuns, type DemoRun } from "./bench-runs-data";
 
 // A second tool measured at the Wrenford bench under the same protocol version and conditions as the Aeris 720, and
 // published, so the demo has a pair of tools compared on equal terms beside the pair from different labs and supplies.
 // Tested before the Aeris 720, so the Wrenford draft (made from the lab's latest run) stays on that tool.
+
+type DemoCapture = DemoRun["captures"][number];
+
+// The Aeris 720's run: the same scope, logger, probes, column mapping and instruments serve this one.
+const aerisRun = demoRuns.find((run) => run.toolSlug === "quillfern-aeris-720")!;
+const aerisWaveform = aerisRun.captures.find((capture): capture is Extract<DemoCapture, { kind: "waveform" }> => capture.kind === "waveform")!;
+const aerisHeatUp = aerisRun.captures.find((capture): capture is Extract<DemoCapture, { kind: "heat_up_log" }> => capture.kind === "heat_up_log")!;
 
 export const comparisonRun: DemoRun = {
   id: "5eed0006-7e57-4b00-8000-000000000001",
@@ -14,7 +21,7 @@ export const comparisonRun: DemoRun = {
   unit: { serialNumber: "SP300-0871-2214", firmware: "2.3", voltageVariant: "230 V, EU plug", source: "bought", sourceNote: null },
   conditionOverrides: { measuredSupplyVoltage: 229.6, ambientC: 23.4 },
   notes: "Same bench, supply and protocol version as the Aeris 720; the station's own micro nozzle stayed in the box.",
-  instrumentSerials: ["HC40-218770", "VT22-04157", "TK52-30981", "VA8-11206"],
+  instrumentSerials: aerisRun.instrumentSerials,
   readings: [
     { id: "5eed0006-7e57-4b00-8100-000000000001", kind: "airflow", values: [38.9, 40.6, 39.4, 41.1, 39.8], instrumentSerial: "VA8-11206", note: "From the vane reading and the 6 mm bore, at maximum airflow." },
     { id: "5eed0006-7e57-4b00-8100-000000000002", kind: "temperature_vs_setpoint", values: [352, 356, 349, 354, 353], instrumentSerial: "TK52-30981", note: "Outlet at 5 mm, setpoint 350 °C." },
@@ -25,11 +32,7 @@ export const comparisonRun: DemoRun = {
       analysisId: "5eed0006-7e57-4b00-8300-000000000001",
       kind: "waveform",
       fileName: "spot-300-full-power.csv",
-      layout: {
-        header: ["# Veymouth Test VT-2204 isolated-channel scope, CSV export", "Record Length,40000", "Sample Interval,1.0000E-04", "CH1 Probe,clamp 100 mV/A", "CH2 Probe,100:1 (scaled in scope)"],
-        columns: ["Time (s)", "CH1 (V)", "CH2 (V)"],
-        delimiter: ",",
-      },
+      layout: aerisWaveform.layout,
       heater: {
         supplyVoltage: 230,
         frequencyHz: 50,
@@ -43,25 +46,16 @@ export const comparisonRun: DemoRun = {
         noise: { amps: 0.01, volts: 0.3 },
         seed: 300,
       },
-      mapping: {
-        currentColumn: "CH1 (V)",
-        currentScale: 10,
-        voltageColumn: "CH2 (V)",
-        voltageScale: 1,
-        timeColumn: "Time (s)",
-        harmonicClass: "A",
-        dmaxLimitPercent: 4,
-        rule: "simple",
-      },
+      mapping: aerisWaveform.mapping,
     },
     {
       id: "5eed0006-7e57-4b00-8200-000000000002",
       analysisId: "5eed0006-7e57-4b00-8300-000000000002",
       kind: "heat_up_log",
       fileName: "spot-300-heat-up.csv",
-      layout: { header: ["Tarrow Meters TK-52 logger export", "Channel,TC1 type K at 5 mm", "Interval,0.5 s"], columns: ["Elapsed (s)", "TC1 (°C)"], delimiter: "," },
+      layout: aerisHeatUp.layout,
       heatUp: { ambientC: 23.4, setpointC: 350, deadTimeS: 1, timeConstantS: 4, overshootC: 11, rippleC: 1.8, intervalS: 0.5, seconds: 90, noiseC: 0.3, seed: 301 },
-      mapping: { temperatureColumn: "TC1 (°C)", temperatureScale: 1, timeColumn: "Elapsed (s)", setpointC: 350, bandC: 15, rule: "simple" },
+      mapping: aerisHeatUp.mapping,
     },
   ],
 };
@@ -73,7 +67,7 @@ export const comparisonPublication = {
   labels: { waveform: "full-power", heatUp: "heat-up" },
   body: ({ waveform, heatUp }: { waveform: string; heatUp: string }) =>
     [
-      "## In short\n\nThe Spot 300 went through the same protocol version, on the same 230 V supply and with the same nozzle and setpoints as the Aeris 720 a few days later, so the two can be compared figure for figure.",
+      "## In short\n\nThe Spot 300 went through the same protocol version, on the same 230 V supply and with the same nozzle and setpoints as the Aeris 720, a few days before it, so the two can be compared figure for figure.",
       "<SafetyNotice />",
       `## Power input against the rating\n\n<VerdictTable analysis="${waveform}" />`,
       `## How the controller switches\n\n<ConductionMap analysis="${waveform}" />\n\n<HarmonicChart analysis="${waveform}" />`,

@@ -2,7 +2,7 @@ import { formatNumber } from "@/components/report-embeds/figure-format";
 import type { HeatUpFigures } from "@/lib/report-embeds";
 import type { PublishedAnalysis } from "@/lib/published-results";
 import type { CompareSide } from "@/lib/validations/compare";
-import { compareHeadClass, compareTableClass, SourceLine } from "./compare-table";
+import { SideBySideTable, SourceLine, type SideBySideRow } from "./compare-table";
 import { LazyHeatUpOverlay } from "./lazy-charts";
 
 export type HeatUpSide = { name: string; heatUp: PublishedAnalysis | null; claimedSeconds: number | null };
@@ -22,6 +22,12 @@ const figureRows: { label: string; value: (figures: HeatUpFigures) => string }[]
   { label: "t90", value: (figures) => seconds(figures.t90S) },
   { label: "Overshoot", value: (figures) => `${formatNumber(figures.overshootC, 3)} °C` },
   { label: "Steady state (spread s)", value: (figures) => `${celsius(figures.finalTemperatureC)} (${formatNumber(figures.steadyState.standardDeviation, 2)} °C)` },
+];
+
+const heatUpRows: SideBySideRow<HeatUpSide>[] = [
+  ...figureRows.map(({ label, value }) => ({ label, value: (side: HeatUpSide) => (side.heatUp?.heatUp ? value(side.heatUp.heatUp) : "—") })),
+  { label: "Claimed heat-up time", value: (side) => seconds(side.claimedSeconds) },
+  { label: "From", value: (side) => (side.heatUp ? <SourceLine report={side.heatUp.report} run={side.heatUp.run} /> : "—"), words: true },
 ];
 
 function entrySentence(side: HeatUpSide): string {
@@ -51,35 +57,7 @@ export function HeatUpComparison({ a, b }: { a: HeatUpSide; b: HeatUpSide }) {
         {entrySentence(a)} {entrySentence(b)} Dashed: the setpoint{setpoints.length > 1 ? "s" : ""}.
       </p>
       <div className="mt-3">
-        <table className={compareTableClass}>
-          <caption className="sr-only">Heat-up figures of both tools</caption>
-          <thead className={compareHeadClass}>
-            <tr>
-              <td className="px-3 py-2" />
-              <th scope="col" className="px-3 py-2">{a.name}</th>
-              <th scope="col" className="px-3 py-2">{b.name}</th>
-            </tr>
-          </thead>
-          <tbody>
-            {figureRows.map((row) => (
-              <tr key={row.label} className="border-t border-rule">
-                <th scope="row" className="px-3 py-2 font-semibold">{row.label}</th>
-                <td className="figure px-3 py-2">{a.heatUp?.heatUp ? row.value(a.heatUp.heatUp) : "—"}</td>
-                <td className="figure px-3 py-2">{b.heatUp?.heatUp ? row.value(b.heatUp.heatUp) : "—"}</td>
-              </tr>
-            ))}
-            <tr className="border-t border-rule">
-              <th scope="row" className="px-3 py-2 font-semibold">Claimed heat-up time</th>
-              <td className="figure px-3 py-2">{seconds(a.claimedSeconds)}</td>
-              <td className="figure px-3 py-2">{seconds(b.claimedSeconds)}</td>
-            </tr>
-            <tr className="border-t border-rule align-top">
-              <th scope="row" className="px-3 py-2 font-semibold">From</th>
-              <td className="px-3 py-2">{a.heatUp ? <SourceLine report={a.heatUp.report} run={a.heatUp.run} /> : "—"}</td>
-              <td className="px-3 py-2">{b.heatUp ? <SourceLine report={b.heatUp.report} run={b.heatUp.run} /> : "—"}</td>
-            </tr>
-          </tbody>
-        </table>
+        <SideBySideTable caption="Heat-up figures of both tools" rows={heatUpRows} a={a} b={b} names={{ a: a.name, b: b.name }} />
       </div>
     </figure>
   );

@@ -4,39 +4,9 @@ import { formatNumber } from "@/components/report-embeds/figure-format";
 import { LazyHarmonicPlot } from "@/components/report-embeds/lazy-plots";
 import type { FlickerFigures, PublishedAnalysis } from "@/lib/published-results";
 import type { WaveformFigures } from "@/lib/report-embeds";
-import { compareHeadClass, compareTableClass, SourceLine } from "./compare-table";
+import { compareHeadClass, compareTableClass, SideBySideTable, SourceLine, type SideBySideRow } from "./compare-table";
 
 export type SupplySide = { name: string; waveform: PublishedAnalysis | null };
-
-/** A row of figures; `words` marks one whose values are words, set in the text face instead of the figures' one. */
-type Row<T> = { label: string; value: (figures: T) => string; words?: true };
-
-/** Two columns of figures, one per tool, each row read from that tool's analysis; "—" where a tool has none. */
-function SideBySideTable<T>({ caption, rows, a, b, names }: { caption: string; rows: Row<T>[]; a: T | null; b: T | null; names: { a: string; b: string } }) {
-  return (
-    <div>
-      <table className={compareTableClass}>
-        <caption className="sr-only">{caption}</caption>
-        <thead className={compareHeadClass}>
-          <tr>
-            <td className="px-3 py-2" />
-            <th scope="col" className="px-3 py-2">{names.a}</th>
-            <th scope="col" className="px-3 py-2">{names.b}</th>
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map((row) => (
-            <tr key={row.label} className="border-t border-rule align-top">
-              <th scope="row" className="px-3 py-2 font-semibold">{row.label}</th>
-              <td className={`${row.words ? "" : "figure "}px-3 py-2`}>{a === null ? "—" : row.value(a)}</td>
-              <td className={`${row.words ? "" : "figure "}px-3 py-2`}>{b === null ? "—" : row.value(b)}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-  );
-}
 
 const firingLabels: Record<string, string> = {
   "whole-cycle": "burst-fire (whole cycles)",
@@ -45,7 +15,7 @@ const firingLabels: Record<string, string> = {
   none: "never conducted",
 };
 
-const conductionRows: Row<WaveformFigures>[] = [
+const conductionRows: SideBySideRow<WaveformFigures>[] = [
   { label: "Firing", value: ({ halfCycles }) => `${firingLabels[halfCycles.firing] ?? halfCycles.firing}${halfCycles.asymmetric ? ", asymmetric" : ""}`, words: true },
   { label: "Half-cycles conducting", value: ({ halfCycles }) => `${halfCycles.conducting} of ${halfCycles.count}` },
   { label: "Duty", value: ({ halfCycles }) => `${formatNumber(halfCycles.duty * 100, 3)} %` },
@@ -60,7 +30,7 @@ function harmonicVerdict({ harmonics }: WaveformFigures): string {
   return above.length ? `above the Class ${harmonics.class} limit at order${above.length > 1 ? "s" : ""} ${above.join(", ")}` : `within the Class ${harmonics.class} limits`;
 }
 
-const harmonicRows: Row<WaveformFigures>[] = [
+const harmonicRows: SideBySideRow<WaveformFigures>[] = [
   { label: "Against IEC 61000-3-2", value: harmonicVerdict, words: true },
   { label: "Fundamental", value: ({ harmonics }) => `${formatNumber(harmonics.fundamentalAmps)} A` },
   { label: "THD", value: ({ harmonics }) => `${formatNumber(harmonics.thdPercent, 3)} %` },
@@ -69,7 +39,7 @@ const harmonicRows: Row<WaveformFigures>[] = [
 const withLimit = (value: number, limit: number, unit: string, digits = 3) =>
   `${formatNumber(value, digits)}${unit} (limit ${formatNumber(limit, digits)}${unit}, ${value <= limit ? "within" : "above"})`;
 
-const flickerRows: Row<FlickerFigures>[] = [
+const flickerRows: SideBySideRow<FlickerFigures>[] = [
   { label: "Pst", value: (flicker) => withLimit(flicker.pst, flicker.pstLimit, "") },
   { label: "dmax", value: (flicker) => withLimit(flicker.dmaxPercent, flicker.dmaxLimitPercent, " %") },
   { label: "dc", value: (flicker) => withLimit(flicker.dcPercent, flicker.dcLimitPercent, " %") },

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { unstable_cache } from "next/cache";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { AccessoryList } from "@/components/accessory-list";
 import { FigureList } from "@/components/figure-list";
 import { ReportCards } from "@/components/published-report/report-cards";
 import { getToolBySlug } from "@/db/queries/catalogue";
@@ -77,15 +78,7 @@ export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
           <h2 id="accessories-heading" className="mb-3 font-serif text-2xl">
             In the box
           </h2>
-          <ul className="list-disc space-y-1 pl-6">
-            {/* A static list in the maker's order, and the same nozzle often comes in several sizes: index keys are right here. */}
-            {tool.accessories.map((accessory, index) => (
-              <li key={index}>
-                {accessory.name}
-                {accessory.size ? <span className="figure text-ink-soft"> ({accessory.size})</span> : null}
-              </li>
-            ))}
-          </ul>
+          <AccessoryList accessories={tool.accessories} className="space-y-1 pl-6" />
         </section>
       ) : null}
       <PublishedResultsTable results={results} />
