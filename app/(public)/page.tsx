@@ -107,8 +107,10 @@ export default async function HomePage() {
                   </h3>
                   <p className="text-sm text-ink-soft">
                     {toolCategoryLabels[tool.category]}
-                    {tool.newestResultAt ? ` · results of ${formatDate(new Date(tool.newestResultAt))}` : ""} · <span className="figure">{tool.publishedReports}</span>{" "}
-                    {tool.publishedReports === 1 ? "report" : "reports"}
+                    {tool.newestResultAt ? ` · results of ${formatDate(new Date(tool.newestResultAt))}` : ""} ·{" "}
+                    <span className="whitespace-nowrap">
+                      <span className="figure">{tool.publishedReports}</span> {tool.publishedReports === 1 ? "report" : "reports"}
+                    </span>
                   </p>
                 </li>
               ))}
