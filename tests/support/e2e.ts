@@ -2,7 +2,7 @@ import { mkdtemp, rm } from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
-import { expect } from "vitest";
+import { afterAll, beforeAll, expect } from "vitest";
 
 // Not BASE_URL: vitest fills process.env.BASE_URL with Vite's public base path ("/").
 export const BASE_URL = (process.env.E2E_BASE_URL ?? "http://localhost:3100").replace(/\/$/, "");
@@ -45,6 +45,25 @@ export async function launchBrowser(options: { viewport?: { width: number; heigh
     close: async () => {
       await context.close();
       await rm(profileDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** One browser at this size for the tests of a describe block: opened before them, closed (profile removed) after. */
+export function browserForSuite(viewport: { width: number; height: number }): { readonly page: Page } {
+  let browser: E2eBrowser | undefined;
+  let page: Page | undefined;
+  beforeAll(async () => {
+    browser = await launchBrowser({ viewport });
+    page = await browser.newPage();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return {
+    get page() {
+      if (!page) throw new Error("the suite's browser is not open yet");
+      return page;
     },
   };
 }

@@ -60,6 +60,11 @@ function isSort(id: string): id is CatalogueSort {
   return (catalogueSorts as readonly string[]).includes(id);
 }
 
+const powerFields = [
+  ["minPowerW", "Rated power from (W)"],
+  ["maxPowerW", "Rated power up to (W)"],
+] as const satisfies [keyof FilterDraft, string][];
+
 const column = createColumnHelper<ToolSpec>();
 
 const columns = [
@@ -244,22 +249,9 @@ export function CatalogueBrowser({ initial, makers }: { initial: { key: string; 
             ))}
           </SelectField>
           <div className="grid grid-cols-2 gap-3 sm:col-span-2">
-            <TextField
-              label="Rated power from (W)"
-              name="minPowerW"
-              inputMode="numeric"
-              value={draft.minPowerW}
-              onChange={(event) => type("minPowerW", event.target.value)}
-              errors={problems}
-            />
-            <TextField
-              label="Rated power up to (W)"
-              name="maxPowerW"
-              inputMode="numeric"
-              value={draft.maxPowerW}
-              onChange={(event) => type("maxPowerW", event.target.value)}
-              errors={problems}
-            />
+            {powerFields.map(([name, label]) => (
+              <TextField key={name} label={label} name={name} inputMode="numeric" value={draft[name]} onChange={(event) => type(name, event.target.value)} errors={problems} />
+            ))}
           </div>
           <SelectField label="Published results" name="published" value={draft.published} onChange={(event) => choose("published", event.target.value)} errors={problems}>
             <option value="">Tested or not</option>
