@@ -102,3 +102,46 @@ describe.each([
     }
   });
 });
+
+describe("a report on paper", () => {
+  let browser: E2eBrowser;
+
+  beforeAll(async () => {
+    browser = await launchBrowser({ viewport: DESKTOP_VIEWPORT });
+    await signIn(await browser.newPage(), reader.email, demoPassword);
+  });
+  afterAll(async () => browser?.close());
+
+  it("prints without navigation or controls, every table within the page and each chart's data shown", async () => {
+    const page = await browser.newPage();
+    const report = readerPages.find((entry) => entry.pattern === "/reports/[slug]")!;
+    await page.goto(url(report.path), { waitUntil: "networkidle" });
+    await page.emulateMedia({ media: "print" });
+    // A4's printable width at the stylesheet's margins, in CSS pixels.
+    await page.setViewportSize({ width: 686, height: 1000 });
+    const printed = await page.evaluate(() => {
+      const shown = (element: Element) => getComputedStyle(element).display !== "none" && (element as HTMLElement).offsetParent !== null;
+      const controls = Array.from(document.querySelectorAll("body nav, form, button, select, textarea, input")).filter(shown);
+      const dataTables = Array.from(document.querySelectorAll("figure details table"));
+      const pageWidth = document.documentElement.clientWidth;
+      return {
+        controls: controls.map((element) => element.outerHTML.slice(0, 80)),
+        dataTables: dataTables.length,
+        hiddenDataTables: dataTables.filter((table) => table.getBoundingClientRect().height === 0).length,
+        tooWide: Array.from(document.querySelectorAll("table"))
+          .filter((table) => table.getBoundingClientRect().right > pageWidth + 0.5)
+          .map((table) => table.querySelector("caption")?.textContent ?? "a table"),
+        paper: getComputedStyle(document.body).backgroundColor,
+        ink: getComputedStyle(document.querySelector("h1")!).color,
+      };
+    });
+    expect(printed.controls).toEqual([]);
+    expect(printed.dataTables).toBeGreaterThan(0);
+    expect(printed.hiddenDataTables).toBe(0);
+    expect(printed.tooWide).toEqual([]);
+    expect(printed.ink).toBe("rgb(0, 0, 0)");
+    const pdf = await page.pdf({ format: "A4" });
+    expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
+    await page.close();
+  });
+});

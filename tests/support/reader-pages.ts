@@ -1,4 +1,5 @@
 import type { Page } from "playwright-core";
+import { demoRuns } from "@/db/seeds/bench-runs-data";
 import { seededRequestIds } from "@/db/seeds/community-data";
 import { demoPublications } from "@/db/seeds/editorial-data";
 import { demoTools } from "@/db/seeds/people-and-catalogue-data";
@@ -15,7 +16,7 @@ const report = demoPublications[0]!;
 export const readerPages: ReaderPage[] = [
   { pattern: "/", path: "/" },
   { pattern: "/tools", path: "/tools" },
-  { pattern: "/tools", path: "/tools?category=hot_air_station&q=a" },
+  { pattern: "/tools", path: "/tools?category=hot_air_station&published=yes&sort=ratedPower&order=desc" },
   { pattern: "/tools/[slug]", path: `/tools/${demoTools[0]!.slug}` },
   { pattern: "/reports", path: "/reports" },
   { pattern: "/reports/[slug]", path: `/reports/${report.slug}` },
@@ -31,6 +32,10 @@ export const readerPages: ReaderPage[] = [
   { pattern: "/reset-password/[token]", path: `/reset-password/${"x".repeat(43)}` },
   { pattern: "/unsubscribe/[token]", path: `/unsubscribe/${"x".repeat(32)}?topic=request_update` },
   { pattern: "/account-deleted", path: "/account-deleted" },
+  // Two tools measured under different supplies, so the comparability warnings show.
+  { pattern: "/compare", path: `/compare?a=${demoRuns[0]!.toolSlug}&b=${demoRuns[1]!.toolSlug}` },
+  { pattern: "/compare", path: "/compare" },
+  { pattern: "/search", path: "/search?q=station" },
 ];
 
 /**
