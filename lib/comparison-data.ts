@@ -13,7 +13,10 @@ export function loadComparisonSide(toolSlug: string): Promise<ComparisonSide> {
   return unstable_cache(
     async () => {
       const [results, analyses] = await Promise.all([listPublishedResultsForTool({ toolSlug }), listPublishedAnalysesForTool({ toolSlug })]);
-      return chooseComparisonSide({ results, analyses });
+      const side = chooseComparisonSide({ results, analyses });
+      // The page draws a waveform analysis's conduction strip, never the waveform itself, whose envelope is most of it.
+      const halfCycles = side.waveform?.displaySeries?.halfCycles;
+      return side.waveform ? { ...side, waveform: { ...side.waveform, displaySeries: halfCycles ? { halfCycles } : null } } : side;
     },
     ["comparison-side", toolSlug],
     { tags: [publishedReportsCacheTag], revalidate: publishedListsMaxAgeSeconds },
