@@ -34,6 +34,7 @@ export default async function ReportPage({ params }: PageProps<"/reports/[slug]"
         embeds={shown.embeds}
         body={shown.body}
         retracted={report.status === "retracted"}
+        downloads={<OpenDataDownloads slug={report.slug} revisionNumber={revision.number} retracted={report.status === "retracted"} />}
         meta={
           <>
             Published {report.firstPublishedAt ? formatDate(report.firstPublishedAt) : ""}
@@ -47,7 +48,6 @@ export default async function ReportPage({ params }: PageProps<"/reports/[slug]"
           </>
         }
       />
-      <OpenDataDownloads slug={report.slug} revisionNumber={revision.number} retracted={report.status === "retracted"} />
       <RevisionHistory slug={report.slug} revisions={revisions} current={revision.number} />
       <MakerReplies replies={replies} />
       <CommentsSection report={report} />
