@@ -1,12 +1,11 @@
-import type { Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { formatMeasured } from "@/components/report-embeds/figure-format";
 import { listPublishedResultsForReport } from "@/db/queries/published-results";
 import { createAccount } from "../support/factories";
 import { frozenContentForTool, frozenMeasurement, powerVerdict } from "../support/frozen-content";
 import { fixtureRetractionReason, insertReportWithRevisions } from "../support/published-fixtures";
 import { createTool } from "../support/report-fixtures";
-import { DESKTOP_VIEWPORT, launchBrowser, PHONE_VIEWPORT, url, type E2eBrowser } from "../support/e2e";
+import { browserForSuite, DESKTOP_VIEWPORT, PHONE_VIEWPORT, url } from "../support/e2e";
 
 // A corrected report shows its current revision's figures with the correction notice and the history; a retracted
 // one stays readable with its reason, every verdict marked withdrawn. Figures are checked against the query readers'
@@ -51,22 +50,12 @@ describe.each([
   ["phone", PHONE_VIEWPORT],
   ["desktop", DESKTOP_VIEWPORT],
 ] as const)("the report page at %s width", (_name, viewport) => {
-  let browser: E2eBrowser;
-  let page: Page;
+  const suite = browserForSuite(viewport);
 
-  beforeAll(async () => {
-    browser = await launchBrowser({ viewport });
-    page = await browser.newPage();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
-
-  async function articleText() {
-    return squash(await page.locator("main").innerText());
-  }
+  const articleText = async () => squash(await suite.page.locator("main").innerText());
 
   it("shows a corrected report's current figures with the correction, the history, the runs and the links to its tool", async () => {
+    const { page } = suite;
     await page.goto(url(`/reports/${corrected}`));
     const [power] = (await listPublishedResultsForReport({ slug: corrected })).filter((result) => result.kind === "power_input_full_demand");
     expect(power?.value).toBe(correctedValue);
@@ -88,6 +77,7 @@ describe.each([
   });
 
   it("keeps a retracted report readable with its reason, every verdict marked withdrawn", async () => {
+    const { page } = suite;
     await page.goto(url(`/reports/${retracted}`));
     expect(await page.getByRole("alert").filter({ hasText: fixtureRetractionReason }).isVisible()).toBe(true);
     expect(await page.getByText("Retracted bench report").isVisible()).toBe(true);

@@ -1,5 +1,5 @@
 import type { Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { formatMeasured, formatNumber } from "@/components/report-embeds/figure-format";
 import { listPublishedResultsForTool } from "@/db/queries/published-results";
 import { demoPublications } from "@/db/seeds/editorial-data";
@@ -9,7 +9,7 @@ import { createAccount } from "../support/factories";
 import { frozenContentForTool, frozenMeasurement, powerVerdict } from "../support/frozen-content";
 import { fixtureRetractionReason, insertReportWithRevisions } from "../support/published-fixtures";
 import { createTool } from "../support/report-fixtures";
-import { DESKTOP_VIEWPORT, launchBrowser, PHONE_VIEWPORT, url, type E2eBrowser } from "../support/e2e";
+import { browserForSuite, DESKTOP_VIEWPORT, PHONE_VIEWPORT, url } from "../support/e2e";
 
 // The tool page against the query it is built from: every published result, in every quantity's table (desktop) or
 // card list (phone), with the figures the frozen content holds. A tool made here has a corrected report, a retracted
@@ -110,18 +110,10 @@ describe.each([
   ["phone", PHONE_VIEWPORT, "cards"],
   ["desktop", DESKTOP_VIEWPORT, "table"],
 ] as const)("the tool page at %s width", (_name, viewport, layout) => {
-  let browser: E2eBrowser;
-  let page: Page;
-
-  beforeAll(async () => {
-    browser = await launchBrowser({ viewport });
-    page = await browser.newPage();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
+  const suite = browserForSuite(viewport);
 
   it("lists every current published result with its figures, the retracted ones marked", async () => {
+    const { page } = suite;
     await page.goto(url(`/tools/${tool.slug}`));
     const results = await expectPageMatchesQuery(page, tool.slug, layout);
     expect(results.map((result) => [result.report.title, result.report.revisionNumber, result.report.retracted])).toEqual(
@@ -138,6 +130,7 @@ describe.each([
   });
 
   it("shows the seeded report's results on the demo tool as the query gives them", async () => {
+    const { page } = suite;
     const seeded = demoPublications[0]!;
     const demoTool = "quillfern-aeris-720";
     await page.goto(url(`/tools/${demoTool}`));
