@@ -10,11 +10,12 @@ import type { WaveformPlot } from "./waveform-chart";
 // and tables. So a drawing's code is fetched only when the drawing comes near the window, and never for a reader who
 // does not scroll to it; the placeholder keeps the drawing's height so nothing jumps when it arrives.
 
-function PlotPlaceholder() {
-  return <div className="h-64 w-full rounded bg-paper-sunk/60 print:hidden" />;
+function PlotPlaceholder({ height = "h-64" }: { height?: string }) {
+  return <div className={`${height} w-full rounded bg-paper-sunk/60 print:hidden`} />;
 }
 
-function WhenNearView({ children }: { children: ReactNode }) {
+/** Renders its children only once it comes within 200 px of the window; until then the placeholder holds their place. */
+export function WhenNearView({ children, height }: { children: ReactNode; height?: string }) {
   const anchor = useRef<HTMLDivElement>(null);
   const [near, setNear] = useState(false);
   useEffect(() => {
@@ -32,12 +33,12 @@ function WhenNearView({ children }: { children: ReactNode }) {
     observer.observe(element);
     return () => observer.disconnect();
   }, [near]);
-  return <div ref={anchor}>{near ? children : <PlotPlaceholder />}</div>;
+  return <div ref={anchor}>{near ? children : <PlotPlaceholder height={height} />}</div>;
 }
 
-const WaveformDrawing = dynamic(() => import("./waveform-chart").then((module) => module.WaveformPlot), { ssr: false, loading: PlotPlaceholder });
-const HarmonicDrawing = dynamic(() => import("./harmonic-chart").then((module) => module.HarmonicPlot), { ssr: false, loading: PlotPlaceholder });
-const HeatUpDrawing = dynamic(() => import("./heat-up-curve").then((module) => module.HeatUpPlot), { ssr: false, loading: PlotPlaceholder });
+const WaveformDrawing = dynamic(() => import("./waveform-chart").then((module) => module.WaveformPlot), { ssr: false, loading: () => <PlotPlaceholder /> });
+const HarmonicDrawing = dynamic(() => import("./harmonic-chart").then((module) => module.HarmonicPlot), { ssr: false, loading: () => <PlotPlaceholder /> });
+const HeatUpDrawing = dynamic(() => import("./heat-up-curve").then((module) => module.HeatUpPlot), { ssr: false, loading: () => <PlotPlaceholder /> });
 
 export function LazyWaveformPlot(props: ComponentProps<typeof WaveformPlot>) {
   return (
