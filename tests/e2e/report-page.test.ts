@@ -1,17 +1,15 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { formatMeasured } from "@/components/report-embeds/figure-format";
 import { listPublishedResultsForReport } from "@/db/queries/published-results";
-import { createAccount } from "../support/factories";
 import { frozenContentForTool, frozenMeasurement, powerVerdict } from "../support/frozen-content";
-import { fixtureRetractionReason, insertReportWithRevisions } from "../support/published-fixtures";
-import { createTool } from "../support/report-fixtures";
+import { createToolWithPublishedReports, fixtureRetractionReason, type FixtureTool } from "../support/published-fixtures";
 import { browserForSuite, DESKTOP_VIEWPORT, PHONE_VIEWPORT, url } from "../support/e2e";
 
 // A corrected report shows its current revision's figures with the correction notice and the history; a retracted
 // one stays readable with its reason, every verdict marked withdrawn. Figures are checked against the query readers'
 // downloads and the tool page use, so the page and the data say the same.
 
-let tool: Awaited<ReturnType<typeof createTool>>;
+let tool: FixtureTool;
 let corrected: string;
 let retracted: string;
 
@@ -21,28 +19,11 @@ const correctedValue = 702.25;
 const squash = (text: string) => text.replace(/\s+/g, " ");
 
 beforeAll(async () => {
-  const [made, author] = await Promise.all([createTool(), createAccount({ role: "reviewer" })]);
-  tool = made;
-  const contentWith = (value: number) =>
-    frozenContentForTool(tool, { measurements: [frozenMeasurement({ value, verdict: powerVerdict({ measured: value - 7, normalized: value }) })] });
-  ({ slug: corrected } = await insertReportWithRevisions({
-    toolId: tool.id,
-    authorId: author.id,
-    status: "published",
-    revisions: [
-      { number: 1, status: "published" },
-      { number: 2, status: "published" },
-    ],
-    current: 2,
-    contentOf: (number) => contentWith(number === 1 ? firstValue : correctedValue),
-  }));
-  ({ slug: retracted } = await insertReportWithRevisions({
-    toolId: tool.id,
-    authorId: author.id,
-    status: "retracted",
-    revisions: [{ number: 1, status: "published" }],
-    current: 1,
-    contentOf: () => contentWith(firstValue),
+  ({ tool, corrected, retracted } = await createToolWithPublishedReports({
+    contentOf: (made, report, revision) => {
+      const value = report === "corrected" && revision > 1 ? correctedValue : firstValue;
+      return frozenContentForTool(made, { measurements: [frozenMeasurement({ value, verdict: powerVerdict({ measured: value - 7, normalized: value }) })] });
+    },
   }));
 });
 

@@ -5,20 +5,15 @@ import { listPublishedResultsForTool } from "@/db/queries/published-results";
 import { demoPublications } from "@/db/seeds/editorial-data";
 import { formatDate } from "@/lib/format";
 import { groupResultsByQuantity, type PublishedResult } from "@/lib/published-results";
-import { createAccount } from "../support/factories";
 import { frozenContentForTool, frozenMeasurement, powerVerdict } from "../support/frozen-content";
-import { fixtureRetractionReason, insertReportWithRevisions } from "../support/published-fixtures";
-import { createTool } from "../support/report-fixtures";
+import { createToolWithPublishedReports, fixtureRetractionReason, type FixtureTool } from "../support/published-fixtures";
 import { browserForSuite, DESKTOP_VIEWPORT, PHONE_VIEWPORT, url } from "../support/e2e";
 
 // The tool page against the query it is built from: every published result, in every quantity's table (desktop) or
 // card list (phone), with the figures the frozen content holds. A tool made here has a corrected report, a retracted
 // one and a revision still waiting, so the page must show exactly the current published revisions.
 
-type Tool = Awaited<ReturnType<typeof createTool>>;
-
-let tool: Tool;
-let correctedTitle: string;
+let tool: FixtureTool;
 
 /** What one result's row or card must say, built from the query's row with the page's own formatting helpers. */
 function expectedTexts(result: PublishedResult): string[] {
@@ -71,39 +66,23 @@ async function expectPageMatchesQuery(page: Page, toolSlug: string, layout: "tab
   return results;
 }
 
+const titleOf = (tool: FixtureTool, report: "corrected" | "retracted", revision: number) =>
+  report === "retracted" ? `Withdrawn take on ${tool.slug}` : revision === 1 ? "First take" : `Corrected on the bench ${tool.slug}`;
+
 beforeAll(async () => {
-  const [made, author] = await Promise.all([createTool(), createAccount({ role: "reviewer" })]);
-  tool = made;
-  const contentOf = (value: number, title: string) => () =>
-    frozenContentForTool(tool, {
-      title,
-      measurements: [
-        frozenMeasurement({ value, verdict: powerVerdict({ measured: value - 7, normalized: value }) }),
-        frozenMeasurement({ kind: "airflow", source: "manual", analysisId: null, value: 118.4, unit: "L/min", expandedUncertainty: 1.5, verdict: null }),
-        frozenMeasurement({ kind: "heat_up_time", analysisId: "analysis-heat-up", value: 17.92, unit: "s", expandedUncertainty: 0.58, verdict: null }),
-      ],
-    });
-  correctedTitle = `Corrected on the bench ${tool.slug}`;
-  await insertReportWithRevisions({
-    toolId: tool.id,
-    authorId: author.id,
-    status: "published",
-    revisions: [
-      { number: 1, status: "published" },
-      { number: 2, status: "published" },
-      { number: 3, status: "pending" },
-    ],
-    current: 2,
-    contentOf: (number) => contentOf(690 + number, number === 1 ? "First take" : correctedTitle)(),
-  });
-  await insertReportWithRevisions({
-    toolId: tool.id,
-    authorId: author.id,
-    status: "retracted",
-    revisions: [{ number: 1, status: "published" }],
-    current: 1,
-    contentOf: contentOf(733, `Withdrawn take on ${tool.slug}`),
-  });
+  ({ tool } = await createToolWithPublishedReports({
+    contentOf: (made, report, revision) => {
+      const value = report === "retracted" ? 733 : 690 + revision;
+      return frozenContentForTool(made, {
+        title: titleOf(made, report, revision),
+        measurements: [
+          frozenMeasurement({ value, verdict: powerVerdict({ measured: value - 7, normalized: value }) }),
+          frozenMeasurement({ kind: "airflow", source: "manual", analysisId: null, value: 118.4, unit: "L/min", expandedUncertainty: 1.5, verdict: null }),
+          frozenMeasurement({ kind: "heat_up_time", analysisId: "analysis-heat-up", value: 17.92, unit: "s", expandedUncertainty: 0.58, verdict: null }),
+        ],
+      });
+    },
+  }));
 });
 
 describe.each([
@@ -118,11 +97,11 @@ describe.each([
     const results = await expectPageMatchesQuery(page, tool.slug, layout);
     expect(results.map((result) => [result.report.title, result.report.revisionNumber, result.report.retracted])).toEqual(
       expect.arrayContaining([
-        [correctedTitle, 2, false],
-        [`Withdrawn take on ${tool.slug}`, 1, true],
+        [titleOf(tool, "corrected", 2), 2, false],
+        [titleOf(tool, "retracted", 1), 1, true],
       ]),
     );
-    expect(await page.getByText("First take").count()).toBe(0);
+    expect(await page.getByText(titleOf(tool, "corrected", 1)).count()).toBe(0);
     expect(await page.getByRole("note").filter({ hasText: fixtureRetractionReason }).isVisible()).toBe(true);
     expect(await page.getByRole("link", { name: "Compare with another tool" }).getAttribute("href")).toBe(`/compare?a=${tool.slug}`);
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);

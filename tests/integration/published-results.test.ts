@@ -2,12 +2,10 @@ import { and, eq, inArray } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { listPublishedAnalysesForTool, listPublishedResultsForReport, listPublishedResultsForTool } from "@/db/queries/published-results";
-import { reportRevisions, reports, reportTools, tools, type FrozenReportContent, type ReportStatus, type RevisionStatus } from "@/db/schema";
+import { reportRevisions, reports, reportTools, tools, type FrozenReportContent } from "@/db/schema";
 import { measurementKindInfo } from "@/lib/measurement-kinds";
-import { createAccount } from "../support/factories";
 import { frozenContentForTool, frozenMeasurement } from "../support/frozen-content";
-import { fixtureRetractionReason, insertReportWithRevisions } from "../support/published-fixtures";
-import { createTool } from "../support/report-fixtures";
+import { createToolWithPublishedReports, fixtureRetractionReason, insertReportWithRevisions, type FixtureTool } from "../support/published-fixtures";
 
 // The demo seed publishes the Aeris report through the desk and corrects it in a second revision; readers must see
 // the second revision's figures only. The tool made here carries one report in every state readers must or must not see.
@@ -24,41 +22,30 @@ async function currentContent(slug: string) {
   return row;
 }
 
-let tool: Awaited<ReturnType<typeof createTool>>;
-let authorId: string;
-
-function contentFor(value: number): FrozenReportContent {
-  return frozenContentForTool(tool, { title: `Report with ${value} W`, measurements: [frozenMeasurement({ value })] });
-}
-
-function insertReport(status: ReportStatus, revisions: { number: number; status: RevisionStatus; value: number }[], current: number | null) {
-  return insertReportWithRevisions({
-    toolId: tool.id,
-    authorId,
-    status,
-    revisions,
-    current,
-    contentOf: (number) => contentFor(revisions.find((revision) => revision.number === number)!.value),
-  }).then(({ slug }) => slug);
-}
-
+let tool: FixtureTool;
 let corrected: string;
 let retracted: string;
 let waiting: string;
 
+/** Each revision's power input differs, so a row shows which revision it came from. */
+const powerOf = (report: "corrected" | "retracted" | "waiting", revision: number) => ({ corrected: 700, retracted: 710, waiting: 720 })[report] + revision;
+
+const contentFor = (made: FixtureTool, value: number): FrozenReportContent =>
+  frozenContentForTool(made, { title: `Report with ${value} W`, measurements: [frozenMeasurement({ value })] });
+
 beforeAll(async () => {
-  [tool, { id: authorId }] = await Promise.all([createTool(), createAccount({ role: "reviewer" })]);
-  corrected = await insertReport(
-    "published",
-    [
-      { number: 1, status: "published", value: 701 },
-      { number: 2, status: "published", value: 702 },
-      { number: 3, status: "pending", value: 703 },
-    ],
-    2,
-  );
-  retracted = await insertReport("retracted", [{ number: 1, status: "published", value: 711 }], 1);
-  waiting = await insertReport("submitted", [{ number: 1, status: "scheduled", value: 721 }], null);
+  let authorId: string;
+  ({ tool, authorId, corrected, retracted } = await createToolWithPublishedReports({
+    contentOf: (made, report, revision) => contentFor(made, powerOf(report, revision)),
+  }));
+  ({ slug: waiting } = await insertReportWithRevisions({
+    toolId: tool.id,
+    authorId,
+    status: "submitted",
+    revisions: [{ number: 1, status: "scheduled" }],
+    current: null,
+    contentOf: (revision) => contentFor(tool, powerOf("waiting", revision)),
+  }));
 });
 
 describe("listPublishedResultsForReport", () => {
@@ -91,8 +78,8 @@ describe("listPublishedResultsForTool", () => {
     const rows = await listPublishedResultsForTool({ toolSlug: tool.slug });
     expect(rows.map((row) => [row.report.slug, row.report.revisionNumber, row.value, row.report.retracted]).sort()).toEqual(
       [
-        [corrected, 2, 702, false],
-        [retracted, 1, 711, true],
+        [corrected, 2, powerOf("corrected", 2), false],
+        [retracted, 1, powerOf("retracted", 1), true],
       ].sort(),
     );
     expect(rows.find((row) => row.report.retracted)?.report.retractionReason).toBe(fixtureRetractionReason);

@@ -3,6 +3,8 @@ import { eq } from "drizzle-orm";
 import { db } from "@/db";
 import { reportRevisions, reports, reportTools, type FrozenReportContent, type ReportStatus, type RevisionStatus } from "@/db/schema";
 import { compileForStorage } from "@/lib/mdx/stored";
+import { createAccount } from "./factories";
+import { createTool } from "./report-fixtures";
 
 // Reports in a given editorial state written straight to the database with frozen content from tests/support/
 // frozen-content, for tests of what readers see (the desk's flows that make them are tested on their own).
@@ -60,4 +62,39 @@ export async function insertReportWithRevisions({
     .set({ publishedRevisionId: currentId, firstPublishedAt: currentId ? new Date(Date.UTC(2026, 11, 1, 9)) : null })
     .where(eq(reports.id, reportId));
   return { id: reportId, slug };
+}
+
+export type FixtureTool = Awaited<ReturnType<typeof createTool>>;
+
+/**
+ * A new tool with a report readers see in its second revision (a third still waiting on the desk) and a retracted
+ * one. `contentOf` gives each revision's frozen content.
+ */
+export async function createToolWithPublishedReports({
+  contentOf,
+}: {
+  contentOf: (tool: FixtureTool, report: "corrected" | "retracted", revision: number) => FrozenReportContent;
+}): Promise<{ tool: FixtureTool; authorId: string; corrected: string; retracted: string }> {
+  const [tool, author] = await Promise.all([createTool(), createAccount({ role: "reviewer" })]);
+  const corrected = await insertReportWithRevisions({
+    toolId: tool.id,
+    authorId: author.id,
+    status: "published",
+    revisions: [
+      { number: 1, status: "published" },
+      { number: 2, status: "published" },
+      { number: 3, status: "pending" },
+    ],
+    current: 2,
+    contentOf: (number) => contentOf(tool, "corrected", number),
+  });
+  const retracted = await insertReportWithRevisions({
+    toolId: tool.id,
+    authorId: author.id,
+    status: "retracted",
+    revisions: [{ number: 1, status: "published" }],
+    current: 1,
+    contentOf: (number) => contentOf(tool, "retracted", number),
+  });
+  return { tool, authorId: author.id, corrected: corrected.slug, retracted: retracted.slug };
 }
