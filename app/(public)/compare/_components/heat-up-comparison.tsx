@@ -1,4 +1,5 @@
 import { formatNumber } from "@/components/report-embeds/figure-format";
+import { WhenNearView } from "@/components/report-embeds/lazy-plots";
 import type { HeatUpFigures } from "@/lib/report-embeds";
 import type { PublishedAnalysis } from "@/lib/published-results";
 import type { CompareSide } from "@/lib/validations/compare";
@@ -51,7 +52,9 @@ export function HeatUpComparison({ a, b }: { a: HeatUpSide; b: HeatUpSide }) {
     <figure className="rounded border border-rule bg-paper-raised p-4">
       <figcaption className="font-serif text-lg">Temperature from switch-on, both tools</figcaption>
       <div aria-hidden="true" className="mt-3">
-        <LazyHeatUpOverlay traces={traces} setpointsC={setpoints} />
+        <WhenNearView height="h-72">
+          <LazyHeatUpOverlay traces={traces} setpointsC={setpoints} />
+        </WhenNearView>
       </div>
       <p className="mt-3 text-sm text-ink-soft">
         {entrySentence(a)} {entrySentence(b)} Dashed: the setpoint{setpoints.length > 1 ? "s" : ""}.

@@ -9,7 +9,8 @@ export function HeatUpOverlay({ traces, setpointsC }: { traces: HeatUpTrace[]; s
   return (
     <div className="h-72 w-full">
       <ResponsiveContainer width="100%" height="100%">
-        <LineChart margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
+        {/* Hidden from screen readers (the table beside it has the figures), so it must take no keyboard focus either. */}
+        <LineChart accessibilityLayer={false} margin={{ top: 8, right: 8, bottom: 8, left: 0 }}>
           <CartesianGrid stroke="#d6cfbf" strokeDasharray="3 3" />
           <XAxis dataKey="t" type="number" domain={[0, "dataMax"]} allowDuplicatedCategory={false} tickFormatter={(value: number) => `${Math.round(value)} s`} fontSize={11} />
           <YAxis fontSize={11} width={56} domain={["auto", "auto"]} tickFormatter={(value: number) => `${value} °C`} />
