@@ -70,7 +70,8 @@ export async function listTools({ q, category, maker, minPowerW, maxPowerW, volt
   ];
   if (q) {
     const pattern = `%${q.replace(/[\\%_]/g, (match) => `\\${match}`)}%`;
-    filters.push(or(ilike(tools.model, pattern), ilike(makers.name, pattern), ilike(tools.summary, pattern)));
+    // The full name as shown ("maker model") matches, so a picker finds a tool however much of its name is typed.
+    filters.push(or(ilike(toolName, pattern), ilike(tools.summary, pattern)));
   }
   const where = and(...filters);
   const direction = (order ?? defaultSortOrder(sort)) === "desc" ? sql`desc` : sql`asc`;

@@ -164,6 +164,11 @@ describe("GET /api/tools", () => {
     expect(((await response.json()) as { model: string }[]).map((row) => row.model)).toEqual(["Breeze 550", "Duo 900", "Gun 2000"]);
   });
 
+  it("finds a tool by its full name as shown, maker and model together", async () => {
+    const response = await getTools(`q=${encodeURIComponent(made.station.name)}`);
+    expect(((await response.json()) as { slug: string }[]).map((row) => row.slug)).toEqual([made.station.slug]);
+  });
+
   it("reads an empty parameter as not given", async () => {
     const response = await getTools(`maker=${makerSlug}&category=&voltage=&minPowerW=&q=`);
     expect(response.status).toBe(200);
