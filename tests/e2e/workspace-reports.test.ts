@@ -93,7 +93,9 @@ describe("reports in the workspace", () => {
     expect(await preview.getByRole("table", { name: /Verdicts:/ }).getByText(/meets rating|above rating|below rating|inconclusive/).count()).toBe(1);
     expect(await preview.getByText(/half-cycles conduct/).count()).toBe(1);
     expect(await preview.getByText(/Harmonic currents against IEC 61000-3-2/).count()).toBe(1);
-    expect(await preview.locator(".recharts-surface").count()).toBeGreaterThanOrEqual(2);
+    // Each drawing loads as it comes near the window.
+    for (const figure of await preview.locator("figure").all()) await figure.scrollIntoViewIfNeeded();
+    await expect.poll(() => preview.locator(".recharts-surface").count(), { timeout: 15_000 }).toBeGreaterThanOrEqual(2);
 
     // A syntax error shows with its line while typing.
     await body.fill("Line one\n\n<b>unclosed");
