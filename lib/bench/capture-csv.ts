@@ -849,179 +849,187 @@ class CaptureReader {
     let line = this.line;
     let lastTime = this.lastTime;
     let largestInterval = this.largestInterval;
+    let largestIntervalLine = this.largestIntervalLine;
+    let firstTime = this.firstTime;
+    let firstTimeLine = this.firstTimeLine;
     const firstRow = this.firstRow;
     let p = start;
 
-    while (p < end) {
-      line++;
-      let c = bytes[p] as number;
-      if (c === LF || (c === CR && bytes[p + 1] === LF)) {
-        p += c === LF ? 1 : 2;
-        continue;
-      }
-      if (c === HASH) {
-        p = bytes.indexOf(LF, p) + 1;
-        continue;
-      }
-      if (c === SPACE || c === TAB) {
-        // A line of nothing but blanks is a blank line, as it is in the header.
-        let q = p;
-        while (bytes[q] === SPACE || bytes[q] === TAB || bytes[q] === CR) q++;
-        if (bytes[q] === LF) {
-          p = q + 1;
+    // State lives in locals and goes back to the reader once, here or on a rejection: a property written inside
+    // the loop made V8 drop the optimised loop whenever readers of two shapes (whole file, range) had run it.
+    try {
+      while (p < end) {
+        line++;
+        let c = bytes[p] as number;
+        if (c === LF || (c === CR && bytes[p + 1] === LF)) {
+          p += c === LF ? 1 : 2;
           continue;
         }
-      }
-      let field = 0;
-      let time = 0;
-      let currentValue = 0;
-      let voltageValue = 0;
-      let temperatureValue = 0;
-      for (;;) {
-        const fieldStart = p;
-        const role = field < columnCount ? (roles[field] as number) : SKIP;
-        if (role === SKIP) {
-          while (p < end) {
+        if (c === HASH) {
+          p = bytes.indexOf(LF, p) + 1;
+          continue;
+        }
+        if (c === SPACE || c === TAB) {
+          // A line of nothing but blanks is a blank line, as it is in the header.
+          let q = p;
+          while (bytes[q] === SPACE || bytes[q] === TAB || bytes[q] === CR) q++;
+          if (bytes[q] === LF) {
+            p = q + 1;
+            continue;
+          }
+        }
+        let field = 0;
+        let time = 0;
+        let currentValue = 0;
+        let voltageValue = 0;
+        let temperatureValue = 0;
+        for (;;) {
+          const fieldStart = p;
+          const role = field < columnCount ? (roles[field] as number) : SKIP;
+          if (role === SKIP) {
+            while (p < end) {
+              c = bytes[p] as number;
+              if (c === delimiter || c === LF || c === CR) break;
+              p++;
+            }
+          } else if (role === TIME_TIMESTAMP) {
+            while (p < end) {
+              c = bytes[p] as number;
+              if (c === delimiter || c === LF || c === CR) break;
+              p++;
+            }
+            time = this.timestampSeconds(bytes, fieldStart, p, line, field);
+          } else {
             c = bytes[p] as number;
-            if (c === delimiter || c === LF || c === CR) break;
-            p++;
-          }
-        } else if (role === TIME_TIMESTAMP) {
-          while (p < end) {
-            c = bytes[p] as number;
-            if (c === delimiter || c === LF || c === CR) break;
-            p++;
-          }
-          time = this.timestampSeconds(bytes, fieldStart, p, line, field);
-        } else {
-          c = bytes[p] as number;
-          while (c === SPACE || c === QUOTE) c = bytes[++p] as number;
-          let negative = false;
-          if (c === MINUS || c === PLUS) {
-            negative = c === MINUS;
-            c = bytes[++p] as number;
-          }
-          const numberStart = p;
-          let mantissa = 0;
-          let digit = c - ZERO;
-          while (digit >= 0 && digit <= 9) {
-            mantissa = mantissa * 10 + digit;
-            digit = (bytes[++p] as number) - ZERO;
-          }
-          let digits = p - numberStart;
-          let exponent = 0;
-          c = digit + ZERO;
-          if (c === DOT || (c === COMMA && commaIsDecimal)) {
-            const fractionStart = ++p;
-            digit = (bytes[p] as number) - ZERO;
+            while (c === SPACE || c === QUOTE) c = bytes[++p] as number;
+            let negative = false;
+            if (c === MINUS || c === PLUS) {
+              negative = c === MINUS;
+              c = bytes[++p] as number;
+            }
+            const numberStart = p;
+            let mantissa = 0;
+            let digit = c - ZERO;
             while (digit >= 0 && digit <= 9) {
               mantissa = mantissa * 10 + digit;
               digit = (bytes[++p] as number) - ZERO;
             }
-            exponent = fractionStart - p;
-            digits += p - fractionStart;
+            let digits = p - numberStart;
+            let exponent = 0;
             c = digit + ZERO;
-          }
-          let value: number;
-          if (digits > 0 && digits <= FAST_PATH_DIGITS && (c === delimiter || c === LF)) {
-            // The common field ends at its last digit: no exponent, padding or quotes to look for.
-            value = exponent === 0 ? mantissa : mantissa / (POWERS_OF_TEN[-exponent] as number);
-          } else {
-            if (digits > 0 && (c === UPPER_E || c === LOWER_E)) {
-              c = bytes[++p] as number;
-              let exponentNegative = false;
-              if (c === MINUS || c === PLUS) {
-                exponentNegative = c === MINUS;
-                c = bytes[++p] as number;
+            if (c === DOT || (c === COMMA && commaIsDecimal)) {
+              const fractionStart = ++p;
+              digit = (bytes[p] as number) - ZERO;
+              while (digit >= 0 && digit <= 9) {
+                mantissa = mantissa * 10 + digit;
+                digit = (bytes[++p] as number) - ZERO;
               }
-              const exponentStart = p;
-              let written = 0;
-              while (c >= ZERO && c <= ZERO + 9) {
-                if (written < 10_000) written = written * 10 + (c - ZERO);
+              exponent = fractionStart - p;
+              digits += p - fractionStart;
+              c = digit + ZERO;
+            }
+            let value: number;
+            if (digits > 0 && digits <= FAST_PATH_DIGITS && (c === delimiter || c === LF)) {
+              // The common field ends at its last digit: no exponent, padding or quotes to look for.
+              value = exponent === 0 ? mantissa : mantissa / (POWERS_OF_TEN[-exponent] as number);
+            } else {
+              if (digits > 0 && (c === UPPER_E || c === LOWER_E)) {
                 c = bytes[++p] as number;
+                let exponentNegative = false;
+                if (c === MINUS || c === PLUS) {
+                  exponentNegative = c === MINUS;
+                  c = bytes[++p] as number;
+                }
+                const exponentStart = p;
+                let written = 0;
+                while (c >= ZERO && c <= ZERO + 9) {
+                  if (written < 10_000) written = written * 10 + (c - ZERO);
+                  c = bytes[++p] as number;
+                }
+                if (p === exponentStart) digits = 0;
+                exponent += exponentNegative ? -written : written;
               }
-              if (p === exponentStart) digits = 0;
-              exponent += exponentNegative ? -written : written;
-            }
-            const numberEnd = p;
-            while (c === SPACE || c === QUOTE) c = bytes[++p] as number;
-            if (digits === 0 || !(c === delimiter || c === LF || c === CR)) {
-              this.line = line;
-              throw this.numberError(bytes, fieldStart, end, field);
-            }
-            // Exact when the digits fit 2^53 and |exponent| ≤ 22: one correctly rounded multiply or divide.
-            if (digits > FAST_PATH_DIGITS || exponent > 22 || exponent < -22) {
-              value = slowNumber(bytes, numberStart, numberEnd);
-              if (!Number.isFinite(value)) {
+              const numberEnd = p;
+              while (c === SPACE || c === QUOTE) c = bytes[++p] as number;
+              if (digits === 0 || !(c === delimiter || c === LF || c === CR)) {
                 this.line = line;
                 throw this.numberError(bytes, fieldStart, end, field);
               }
-            } else if (exponent === 0) value = mantissa;
-            else if (exponent > 0) value = mantissa * (POWERS_OF_TEN[exponent] as number);
-            else value = mantissa / (POWERS_OF_TEN[-exponent] as number);
+              // Exact when the digits fit 2^53 and |exponent| ≤ 22: one correctly rounded multiply or divide.
+              if (digits > FAST_PATH_DIGITS || exponent > 22 || exponent < -22) {
+                value = slowNumber(bytes, numberStart, numberEnd);
+                if (!Number.isFinite(value)) {
+                  this.line = line;
+                  throw this.numberError(bytes, fieldStart, end, field);
+                }
+              } else if (exponent === 0) value = mantissa;
+              else if (exponent > 0) value = mantissa * (POWERS_OF_TEN[exponent] as number);
+              else value = mantissa / (POWERS_OF_TEN[-exponent] as number);
+            }
+            if (negative) value = -value;
+            if (role === CURRENT) currentValue = value;
+            else if (role === VOLTAGE) voltageValue = value;
+            else if (role === TIME_SECONDS) time = value;
+            else temperatureValue = value;
           }
-          if (negative) value = -value;
-          if (role === CURRENT) currentValue = value;
-          else if (role === VOLTAGE) voltageValue = value;
-          else if (role === TIME_SECONDS) time = value;
-          else temperatureValue = value;
-        }
-        field++;
-        if (p >= end) break;
-        c = bytes[p] as number;
-        if (c === delimiter) {
-          p++;
-          continue;
-        }
-        if (c === CR) c = bytes[++p] as number;
-        if (c === LF) {
-          p++;
-          break;
-        }
-        this.line = line;
-        throw new CaptureError("binary data: a carriage return inside a row", line);
-      }
-      if (field !== columnCount) {
-        throw new CaptureError(
-          `ragged rows: ${field} value${field === 1 ? "" : "s"} where the column names give ${columnCount}`,
-          line,
-        );
-      }
-      if (hasTime) {
-        if (rows === firstRow) {
-          this.firstTime = time;
-          this.firstTimeLine = line;
-        } else {
-          const interval = time - lastTime;
-          if (!(interval > 0)) {
-            this.line = line;
-            throw timeNotIncreasing(time, lastTime, line);
+          field++;
+          if (p >= end) break;
+          c = bytes[p] as number;
+          if (c === delimiter) {
+            p++;
+            continue;
           }
-          if (interval > largestInterval) {
-            largestInterval = interval;
-            this.largestIntervalLine = line;
+          if (c === CR) c = bytes[++p] as number;
+          if (c === LF) {
+            p++;
+            break;
           }
+          this.line = line;
+          throw new CaptureError("binary data: a carriage return inside a row", line);
         }
-        lastTime = time;
+        if (field !== columnCount) {
+          throw new CaptureError(
+            `ragged rows: ${field} value${field === 1 ? "" : "s"} where the column names give ${columnCount}`,
+            line,
+          );
+        }
+        if (hasTime) {
+          if (rows === firstRow) {
+            firstTime = time;
+            firstTimeLine = line;
+          } else {
+            const interval = time - lastTime;
+            if (!(interval > 0)) throw timeNotIncreasing(time, lastTime, line);
+            if (interval > largestInterval) {
+              largestInterval = interval;
+              largestIntervalLine = line;
+            }
+          }
+          lastTime = time;
+        }
+        if (rows === capacity) {
+          this.rows = rows;
+          this.grow(this.dataBytes + p - start);
+          current = this.current;
+          voltage = this.voltage;
+          temperature = this.temperature;
+          capacity = this.capacity;
+        }
+        if (current !== null) current[rows] = currentValue * scaleCurrent;
+        if (voltage !== null) voltage[rows] = voltageValue * scaleVoltage;
+        if (temperature !== null) temperature[rows] = temperatureValue * scaleTemperature;
+        rows++;
       }
-      if (rows === capacity) {
-        this.rows = rows;
-        this.grow(this.dataBytes + p - start);
-        current = this.current;
-        voltage = this.voltage;
-        temperature = this.temperature;
-        capacity = this.capacity;
-      }
-      if (current !== null) current[rows] = currentValue * scaleCurrent;
-      if (voltage !== null) voltage[rows] = voltageValue * scaleVoltage;
-      if (temperature !== null) temperature[rows] = temperatureValue * scaleTemperature;
-      rows++;
+    } finally {
+      this.rows = rows;
+      this.line = line;
+      this.dataBytes += end - start;
+      this.lastTime = lastTime;
+      this.largestInterval = largestInterval;
+      this.largestIntervalLine = largestIntervalLine;
+      this.firstTime = firstTime;
+      this.firstTimeLine = firstTimeLine;
     }
-    this.rows = rows;
-    this.line = line;
-    this.dataBytes += end - start;
-    this.lastTime = lastTime;
-    this.largestInterval = largestInterval;
   }
 
   private numberError(bytes: Uint8Array, fieldStart: number, end: number, field: number): CaptureError {
