@@ -144,8 +144,9 @@ export type StageObserver = (stage: string, milliseconds: number) => void;
  */
 export interface AnalysisHelper {
   readRange: CaptureRangeReader;
-  /** Starts measureHarmonics on the helper; the function returned waits for its result. The current must be on shared memory. */
+  /** Starts measureHarmonics or peakMagnitude on the helper; the function returned waits for the result. Signals must be on shared memory. */
   startHarmonics(input: HarmonicsInput): () => HarmonicSpectrum;
+  startPeak(signal: Float64Array): () => number;
 }
 
 function nominalFrequencyFor(options: ParsedOptions): number {
@@ -216,14 +217,18 @@ export function analyzeSamples(
 
   const boundaries = halfCycleBoundaries(mains.crossings, sampleRateHz, frequencyHz, current.length);
   const harmonicsInput = { current, sampleRateHz, frequencyHz, startSample: boundaries[0] ?? 0 };
-  // On a helper thread the harmonics are measured while this one works through the half-cycles and the flicker.
-  const harmonicSpectrum =
-    helper !== undefined && current.buffer instanceof SharedArrayBuffer ? helper.startHarmonics(harmonicsInput) : () => measureHarmonics(harmonicsInput);
+  // On a helper thread the peaks and the harmonics are measured while this one works through the half-cycles and
+  // the flicker; the peaks go first, as this thread needs them first.
+  const onHelper = helper !== undefined && current.buffer instanceof SharedArrayBuffer ? helper : null;
+  const peakOf = (signal: Float64Array) => (onHelper ? onHelper.startPeak(signal) : () => peakMagnitude(signal));
+  const currentPeak = peakOf(current);
+  const voltagePeak = voltage === null ? null : peakOf(voltage);
+  const harmonicSpectrum = onHelper ? onHelper.startHarmonics(harmonicsInput) : () => measureHarmonics(harmonicsInput);
   const table = tabulateHalfCycles(current, voltage, boundaries);
   const record = sumHalfCycles(table, 0, table.count);
   const conduction = classifyConduction(table, sampleRateHz);
   const conducting = sumHalfCycles(table, 0, table.count, conduction.conductingMask);
-  const currentRecord = currentFigures(record, peakMagnitude(current));
+  const currentRecord = currentFigures(record, currentPeak());
   const currentRmsWhileConducting = conducting.count > 0 ? Math.sqrt(conducting.currentSquared / conducting.count) : null;
   const wholeCycles = table.count / 2;
   assumptions.push(
@@ -240,8 +245,8 @@ export function analyzeSamples(
   let power: CaptureAnalysis["power"] = null;
   let estimatedPower: EstimatedPower | null = null;
   let powerWhileConducting: number | null = null;
-  if (voltage !== null) {
-    const voltageRecord = voltageFigures(record, peakMagnitude(voltage));
+  if (voltage !== null && voltagePeak !== null) {
+    const voltageRecord = voltageFigures(record, voltagePeak());
     const recordPower = powerFigures(record);
     const whileConducting = conducting.count > 0 ? powerFigures(conducting) : null;
     voltageReport = {

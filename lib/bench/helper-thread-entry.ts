@@ -2,11 +2,13 @@
 
 import { parentPort, type MessagePort } from "node:worker_threads";
 import { readCaptureRange, type CaptureRangeRequest, type CaptureRangeTally } from "./capture-csv";
+import { peakMagnitude } from "./electrical";
 import { measureHarmonics, type HarmonicsInput } from "./harmonics";
 
-export type HelperRequest =
-  | { kind: "range"; id: number; request: CaptureRangeRequest }
-  | { kind: "harmonics"; input: HarmonicsInput; port: MessagePort; done: Int32Array };
+/** Work the main thread waits for synchronously: the answer comes on `port`, and `done` is set and notified. */
+export type HelperJob = { kind: "harmonics"; input: HarmonicsInput } | { kind: "peak"; signal: Float64Array };
+
+export type HelperRequest = { kind: "range"; id: number; request: CaptureRangeRequest } | { kind: "job"; job: HelperJob; port: MessagePort; done: Int32Array };
 
 export type HelperReply = { id: number; tally: CaptureRangeTally } | { id: number; error: string };
 
@@ -20,8 +22,9 @@ parentPort?.on("message", (request: HelperRequest) => {
     );
     return;
   }
+  const { job } = request;
   try {
-    request.port.postMessage({ spectrum: measureHarmonics(request.input) });
+    request.port.postMessage({ value: job.kind === "harmonics" ? measureHarmonics(job.input) : peakMagnitude(job.signal) });
   } catch (error) {
     request.port.postMessage({ error: messageOf(error) });
   }

@@ -9,10 +9,10 @@ import { build, stop } from "esbuild";
 import type { AnalysisHelper } from "./analysis";
 import type { CaptureRangeRequest, CaptureRangeTally } from "./capture-csv";
 import type { HarmonicSpectrum, HarmonicsInput } from "./harmonics";
-import type { HelperReply, HelperRequest } from "./helper-thread-entry";
+import type { HelperJob, HelperReply, HelperRequest } from "./helper-thread-entry";
 
-/** How long the main thread waits for the helper's harmonics before it gives up on a thread that died. */
-const HARMONICS_WAIT_MS = 10 * 60 * 1000;
+/** How long the main thread waits for a job before it gives up on a thread that died. */
+const JOB_WAIT_MS = 10 * 60 * 1000;
 
 export interface HelperThread extends AnalysisHelper {
   close(): Promise<void>;
@@ -59,6 +59,22 @@ export async function startHelperThread(): Promise<HelperThread> {
   let nextId = 0;
   const send = (request: HelperRequest, transfer: Transferable[] = []) => worker.postMessage(request, transfer as never);
 
+  /** Blocking in the function returned keeps analyzeSamples synchronous for every caller; the answer is taken off its port directly. */
+  const startJob = <Answer>(job: HelperJob) => {
+    const { port1, port2 } = new MessageChannel();
+    const done = new Int32Array(new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT));
+    send({ kind: "job", job, port: port2, done }, [port2]);
+    return (): Answer => {
+      const waited = Atomics.wait(done, 0, 0, JOB_WAIT_MS);
+      const received = receiveMessageOnPort(port1);
+      port1.close();
+      if (waited === "timed-out" || received === undefined) throw new Error(`the helper thread did not answer (${job.kind})`);
+      const answer = received.message as { value: Answer } | { error: string };
+      if ("error" in answer) throw new Error(`helper thread: ${answer.error}`);
+      return answer.value;
+    };
+  };
+
   return {
     readRange(request: CaptureRangeRequest) {
       const id = nextId++;
@@ -68,21 +84,8 @@ export async function startHelperThread(): Promise<HelperThread> {
         send({ kind: "range", id, request });
       });
     },
-    startHarmonics(input: HarmonicsInput) {
-      const { port1, port2 } = new MessageChannel();
-      const done = new Int32Array(new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT));
-      send({ kind: "harmonics", input, port: port2, done }, [port2]);
-      // Blocking here keeps analyzeSamples synchronous for every caller; the helper's answer is taken off its port directly.
-      return (): HarmonicSpectrum => {
-        const waited = Atomics.wait(done, 0, 0, HARMONICS_WAIT_MS);
-        const received = receiveMessageOnPort(port1);
-        port1.close();
-        if (waited === "timed-out" || received === undefined) throw new Error("the helper thread did not return the harmonics");
-        const answer = received.message as { spectrum: HarmonicSpectrum } | { error: string };
-        if ("error" in answer) throw new Error(`helper thread: ${answer.error}`);
-        return answer.spectrum;
-      };
-    },
+    startHarmonics: (input: HarmonicsInput) => startJob<HarmonicSpectrum>({ kind: "harmonics", input }),
+    startPeak: (signal: Float64Array) => startJob<number>({ kind: "peak", signal }),
     async close() {
       failAll(new Error("the helper thread was closed"));
       await worker.terminate();
