@@ -168,27 +168,27 @@ export async function readCaptureFile(path: string, options: CaptureReadOptions 
     const { size } = await handle.stat();
     const split = readRange !== undefined && size >= SPLIT_MIN_BYTES;
     const reader = new CaptureReader({ ...options, sizeHintBytes: options.sizeHintBytes ?? size }, split ? { sharedRowsForBytes: size } : undefined);
+    // Where the reading in one pass starts: after the header and first rows when the file could not be split.
+    let from = 0;
     if (split) {
       const first = Buffer.allocUnsafe(READ_CHUNK_BYTES);
       const { bytesRead } = await handle.read(first, 0, READ_CHUNK_BYTES, 0);
       reader.push(first.subarray(0, bytesRead));
-      const resumeAt = bytesRead - reader.dropCarry();
-      const ranges = reader.inRows() ? await splitPoint(handle, resumeAt, size) : null;
-      if (ranges !== null) {
-        const request = { path, countFrom: ranges.start, end: size, ...reader.position() };
+      from = bytesRead - reader.dropCarry();
+      const middle = reader.inRows() ? await splitPoint(handle, from, size) : null;
+      if (middle !== null) {
+        const request = { path, countFrom: from, ...reader.position() };
         const [own, helper] = await Promise.allSettled([
-          readCaptureRange({ ...request, start: ranges.start, end: ranges.middle }),
-          readRange({ ...request, start: ranges.middle }),
+          readCaptureRange({ ...request, start: from, end: middle }),
+          readRange({ ...request, start: middle, end: size }),
         ]);
         if (own.status === "rejected") throw own.reason;
         if (helper.status === "rejected") throw helper.reason;
         reader.joinRanges(own.value, helper.value);
         return reader.finish();
       }
-      await readChunks(handle, reader, resumeAt);
-      return reader.finish();
     }
-    await readChunks(handle, reader, 0);
+    await readChunks(handle, reader, from);
     return reader.finish();
   } finally {
     await handle.close();
@@ -196,12 +196,12 @@ export async function readCaptureFile(path: string, options: CaptureReadOptions 
 }
 
 /** Where the helper's range starts: the line after the byte OWN_SHARE of the way through the rows; null if no line ends there. */
-async function splitPoint(handle: FileHandle, start: number, size: number): Promise<{ start: number; middle: number } | null> {
+async function splitPoint(handle: FileHandle, start: number, size: number): Promise<number | null> {
   const probe = Buffer.allocUnsafe(64 << 10);
   const at = start + Math.floor((size - start) * OWN_SHARE);
   const { bytesRead } = await handle.read(probe, 0, probe.length, at);
   const newline = probe.subarray(0, bytesRead).indexOf(LF);
-  return newline < 0 || at + newline + 1 >= size ? null : { start, middle: at + newline + 1 };
+  return newline < 0 || at + newline + 1 >= size ? null : at + newline + 1;
 }
 
 async function readChunks(handle: FileHandle, reader: CaptureReader, from: number, to = Infinity): Promise<void> {
@@ -405,7 +405,6 @@ class CaptureReader {
     this.voltage = channels.voltage;
     this.temperature = channels.temperature;
     this.capacity = (channels.current ?? channels.voltage ?? channels.temperature)?.length ?? 0;
-    this.sharedRowsForBytes = Number.POSITIVE_INFINITY;
     this.rows = row;
     this.firstRow = row;
     this.line = line;
@@ -810,7 +809,7 @@ class CaptureReader {
 
   /** Sizes the arrays from the bytes a row takes so far when the total size is known, else grows by half. */
   private grow(dataBytesRead: number): void {
-    if (this.sharedRowsForBytes !== null) throw new Error("shared capture arrays are sized for every row the file can hold; a row beyond that is a bug");
+    if ((this.current ?? this.voltage ?? this.temperature)?.buffer instanceof SharedArrayBuffer) throw new Error("shared capture arrays are sized for every row the file can hold; a row beyond that is a bug");
     const hint = this.options.sizeHintBytes;
     let next = Math.ceil(this.capacity * 1.5);
     if (hint !== undefined && this.rows > 0 && dataBytesRead > 0) {
