@@ -1,10 +1,9 @@
 import "server-only";
-import { unstable_cache } from "next/cache";
-import { getPublishedRevision, getReadableReport } from "@/db/queries/editorial";
-import { reportCacheTag } from "@/lib/editorial";
+import { getReadableReport } from "@/db/queries/editorial";
 import { serverEnv } from "@/lib/env";
 import { UserFacingError } from "@/lib/errors";
 import { measurementsDownloadPath, openDataCsv, openDataDocument, openDataFileName, type OpenDataDocument } from "@/lib/open-data";
+import { loadPublishedRevision } from "@/lib/published-reports";
 import { flattenPublishedResults } from "@/lib/published-results";
 import { handleRoute } from "@/lib/route-handler";
 import { measurementsDownloadParamsSchema } from "@/lib/validations/open-data";
@@ -20,12 +19,7 @@ export type MeasurementsDownload = {
 export async function loadMeasurementsDownload({ slug }: { slug: string }): Promise<MeasurementsDownload | null> {
   const report = await getReadableReport({ slug });
   if (!report) return null;
-  // Keyed by revision: a published revision never changes, so this cannot go stale; the report's tag clears it anyway.
-  const revision = await unstable_cache(
-    () => getPublishedRevision({ reportId: report.id, revisionId: report.publishedRevisionId }),
-    ["published-revision-content", report.publishedRevisionId],
-    { tags: [reportCacheTag(slug)] },
-  )();
+  const revision = await loadPublishedRevision({ slug, reportId: report.id, revisionId: report.publishedRevisionId });
   if (!revision) return null;
 
   const retracted = report.status === "retracted";

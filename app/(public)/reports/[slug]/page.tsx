@@ -5,20 +5,20 @@ import { OpenDataDownloads } from "@/components/published-report/open-data-downl
 import { ReportArticle } from "@/components/published-report/report-article";
 import { RetractionBanner, RevisionNotice } from "@/components/published-report/revision-notices";
 import { RevisionHistory } from "@/components/published-report/revision-history";
-import { getReadableReport, listMakerReplies, listPublishedRevisions } from "@/db/queries/editorial";
+import { listMakerReplies, listPublishedRevisions } from "@/db/queries/editorial";
 import { formatDate } from "@/lib/format";
-import { loadRevisionForReaders } from "@/lib/published-reports";
+import { loadReadableReport, loadRevisionForReaders } from "@/lib/published-reports";
 import { CommentsSection } from "./_components/comments-section";
 
 export async function generateMetadata({ params }: PageProps<"/reports/[slug]">): Promise<Metadata> {
-  const report = await getReadableReport({ slug: (await params).slug });
+  const report = await loadReadableReport((await params).slug);
   if (!report) return { title: "Report not found" };
   const shown = await loadRevisionForReaders({ slug: report.slug, reportId: report.id, revisionId: report.publishedRevisionId });
   return { title: shown ? `${report.status === "retracted" ? "Retracted: " : ""}${shown.revision.content.title}` : "Report" };
 }
 
 export default async function ReportPage({ params }: PageProps<"/reports/[slug]">) {
-  const report = await getReadableReport({ slug: (await params).slug });
+  const report = await loadReadableReport((await params).slug);
   if (!report) notFound();
   const [shown, revisions, replies] = await Promise.all([
     loadRevisionForReaders({ slug: report.slug, reportId: report.id, revisionId: report.publishedRevisionId }),
