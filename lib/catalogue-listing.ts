@@ -1,6 +1,7 @@
 import "server-only";
 import { unstable_cache } from "next/cache";
-import { listCatalogueMakers, listTools } from "@/db/queries/catalogue";
+import { cache } from "react";
+import { getToolBySlug, listCatalogueMakers, listTools } from "@/db/queries/catalogue";
 import { searchPublishedReports } from "@/db/queries/search";
 import { publishedListsMaxAgeSeconds, publishedReportsCacheTag } from "@/lib/editorial";
 import type { CatalogueQuery } from "@/lib/validations/catalogue";
@@ -29,3 +30,6 @@ export function loadReportSearch(search: ReportSearch) {
     revalidate: publishedListsMaxAgeSeconds,
   })();
 }
+
+/** One tool, read once per request (by slug, as React's cache compares arguments by identity): a page and its metadata share it. */
+export const loadToolBySlug = cache((slug: string) => getToolBySlug({ slug }));

@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { redirect } from "next/navigation";
-import { getToolBySlug, listTools } from "@/db/queries/catalogue";
+import { listTools } from "@/db/queries/catalogue";
+import { loadToolBySlug } from "@/lib/catalogue-listing";
 import { compareRunConditions } from "@/lib/comparability";
 import { loadComparisonSide } from "@/lib/comparison-data";
 import { pairQuantities, type ComparisonSide } from "@/lib/comparison";
@@ -41,13 +42,14 @@ async function resolveTypedText(text: string | undefined) {
 
 export async function generateMetadata({ searchParams }: PageProps<"/compare">): Promise<Metadata> {
   const { query } = await readQuery(searchParams);
-  const [a, b] = await Promise.all([query.a ? getToolBySlug({ slug: query.a }) : null, query.b ? getToolBySlug({ slug: query.b }) : null]);
+  const [a, b] = await Promise.all([query.a ? loadToolBySlug(query.a) : null, query.b ? loadToolBySlug(query.b) : null]);
   return { title: a && b ? `${nameOf(a)} compared with ${nameOf(b)}` : "Compare two tools" };
 }
 
 export default async function ComparePage({ searchParams }: PageProps<"/compare">) {
   const { query, problems } = await readQuery(searchParams);
-  const typed = { a: await resolveTypedText(query.qa), b: await resolveTypedText(query.qb) };
+  const [typedA, typedB] = await Promise.all([resolveTypedText(query.qa), resolveTypedText(query.qb)]);
+  const typed = { a: typedA, b: typedB };
   // Typed text that names exactly one tool stands for that tool; once every typed side does, the address becomes the
   // shareable one.
   const slugOf = (side: CompareSide) => {
@@ -56,7 +58,7 @@ export default async function ComparePage({ searchParams }: PageProps<"/compare"
   };
   const slugs: Record<CompareSide, string | undefined> = { a: slugOf("a"), b: slugOf("b") };
   if ((typed.a || typed.b) && compareSides.every((side) => !typed[side] || typed[side].total === 1)) redirect(compareHref(slugs));
-  const [toolA, toolB] = await Promise.all(compareSides.map((side) => (slugs[side] ? getToolBySlug({ slug: slugs[side] }) : null)));
+  const [toolA, toolB] = await Promise.all(compareSides.map((side) => (slugs[side] ? loadToolBySlug(slugs[side]) : null)));
   const tools: Record<CompareSide, CatalogueTool | null> = { a: toolA ?? null, b: toolB ?? null };
 
   return (

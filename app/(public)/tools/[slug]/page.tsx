@@ -5,10 +5,10 @@ import { notFound } from "next/navigation";
 import { AccessoryList } from "@/components/accessory-list";
 import { FigureList } from "@/components/figure-list";
 import { ReportCards } from "@/components/published-report/report-cards";
-import { getToolBySlug } from "@/db/queries/catalogue";
 import { listReadableReports } from "@/db/queries/editorial";
 import { listPublishedResultsForTool } from "@/db/queries/published-results";
 import { listToolPhotos } from "@/db/queries/tool-photos";
+import { loadToolBySlug } from "@/lib/catalogue-listing";
 import { publishedListsMaxAgeSeconds, publishedReportsCacheTag } from "@/lib/editorial";
 import { formatFrequencies, formatOptional, formatPrice, formatRange, formatRatedVoltage } from "@/lib/format";
 import { toolCategoryLabels } from "@/lib/validations/catalogue";
@@ -28,14 +28,14 @@ function loadToolResults(toolSlug: string) {
 }
 
 export async function generateMetadata({ params }: PageProps<"/tools/[slug]">): Promise<Metadata> {
-  const tool = await getToolBySlug({ slug: (await params).slug });
+  const tool = await loadToolBySlug((await params).slug);
   return { title: tool ? `${tool.maker} ${tool.model}` : "Tool not found" };
 }
 
 export default async function ToolPage({ params }: PageProps<"/tools/[slug]">) {
   const { slug } = await params;
   const [tool, photos, reports, results] = await Promise.all([
-    getToolBySlug({ slug }),
+    loadToolBySlug(slug),
     listToolPhotos({ toolSlug: slug }),
     listReadableReports({ toolSlug: slug }),
     loadToolResults(slug),
