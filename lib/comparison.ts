@@ -3,8 +3,7 @@
 
 import type { MeasurementKind } from "@/db/schema";
 import type { ComparedRun } from "@/lib/comparability";
-import { measurementKinds } from "@/lib/measurement-kinds";
-import type { PublishedAnalysis, PublishedReportRef, PublishedResult, PublishedRunContext } from "@/lib/published-results";
+import { compareKinds, type PublishedAnalysis, type PublishedReportRef, type PublishedResult, type PublishedRunContext } from "@/lib/published-results";
 
 export type RetractedSource = { report: PublishedReportRef; results: number };
 
@@ -35,14 +34,12 @@ function newestAnalysis(analyses: readonly PublishedAnalysis[], usable: (analysi
   return [...analyses].filter(usable).sort(newerFirst)[0] ?? null;
 }
 
-const kindOrder = new Map<MeasurementKind, number>(measurementKinds.map((kind, index) => [kind, index]));
-
 /** What the compare page shows of one tool, chosen from every published result and cited analysis of it. */
 export function chooseComparisonSide({ results, analyses }: { results: readonly PublishedResult[]; analyses: readonly PublishedAnalysis[] }): ComparisonSide {
   const standing = results.filter((result) => !result.report.retracted);
   const newest = new Map<MeasurementKind, PublishedResult>();
   for (const result of [...standing].sort(resultPreference)) if (!newest.has(result.kind)) newest.set(result.kind, result);
-  const shown = [...newest.values()].sort((a, b) => (kindOrder.get(a.kind) ?? 0) - (kindOrder.get(b.kind) ?? 0));
+  const shown = [...newest.values()].sort((a, b) => compareKinds(a.kind, b.kind));
 
   const standingAnalyses = analyses.filter((analysis) => !analysis.report.retracted);
   const waveform = newestAnalysis(standingAnalyses, (analysis) => analysis.waveform !== null);
@@ -65,7 +62,7 @@ export type QuantityPair = { kind: MeasurementKind; quantity: string; unit: stri
 
 /** Every quantity either tool has a result for, in the catalogue's order, with each tool's result or null. */
 export function pairQuantities(a: readonly PublishedResult[], b: readonly PublishedResult[]): QuantityPair[] {
-  const kinds = [...new Set([...a, ...b].map((result) => result.kind))].sort((x, y) => (kindOrder.get(x) ?? 0) - (kindOrder.get(y) ?? 0));
+  const kinds = [...new Set([...a, ...b].map((result) => result.kind))].sort(compareKinds);
   return kinds.map((kind) => {
     const left = a.find((result) => result.kind === kind) ?? null;
     const right = b.find((result) => result.kind === kind) ?? null;

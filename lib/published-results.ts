@@ -100,10 +100,15 @@ function publishedVerdict(value: unknown): PublishedVerdict | null {
 
 const kindOrder = new Map<MeasurementKind, number>(measurementKinds.map((kind, index) => [kind, index]));
 
+/** Two quantities in the catalogue's order. */
+export function compareKinds(a: MeasurementKind, b: MeasurementKind): number {
+  return (kindOrder.get(a) ?? 0) - (kindOrder.get(b) ?? 0);
+}
+
 /** Quantity in the catalogue's order, retracted results after the standing ones, then the oldest test and revision first. */
 export function compareResults(a: PublishedResult, b: PublishedResult): number {
   return (
-    (kindOrder.get(a.kind) ?? 0) - (kindOrder.get(b.kind) ?? 0) ||
+    compareKinds(a.kind, b.kind) ||
     Number(a.report.retracted) - Number(b.report.retracted) ||
     a.run.testedOn.localeCompare(b.run.testedOn) ||
     a.report.publishedAt.localeCompare(b.report.publishedAt) ||
