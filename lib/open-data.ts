@@ -138,8 +138,7 @@ export function openDataColumns(results: readonly PublishedResult[]): OpenDataCo
   ];
 }
 
-export function openDataRecords(results: readonly PublishedResult[]): OpenDataRecord[] {
-  const columns = openDataColumns(results);
+export function openDataRecords(results: readonly PublishedResult[], columns: readonly OpenDataColumn[] = openDataColumns(results)): OpenDataRecord[] {
   const names = new Set(columns.map((column) => column.name));
   return results.map((result) => {
     const record: OpenDataRecord = Object.fromEntries(columns.map((column) => [column.name, null]));
@@ -188,7 +187,7 @@ export function openDataDocument({ report, results, downloads }: { report: OpenD
       downloads,
       columns,
     },
-    records: openDataRecords(results),
+    records: openDataRecords(results, columns),
   };
 }
 

@@ -4,7 +4,7 @@ import { revisionKindLabels } from "@/lib/validations/editorial";
 import { countVerdicts, describeVerdicts } from "@/lib/verdict-summary";
 
 // What the Atom feed says about each published revision and each retraction. Pure, so the wording is tested
-// without a database; lib/open-data-cache.ts loads the events.
+// without a database; lib/reader-lists.ts loads the events.
 
 export const reportFeedTitle = "Benchplate: bench reports";
 
