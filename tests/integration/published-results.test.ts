@@ -39,7 +39,7 @@ beforeAll(async () => {
     contentOf: (made, report, revision) => contentFor(made, powerOf(report, revision)),
   }));
   ({ slug: waiting } = await insertReportWithRevisions({
-    toolId: tool.id,
+    toolIds: [tool.id],
     authorId,
     status: "submitted",
     revisions: [{ number: 1, status: "scheduled" }],

@@ -1,8 +1,7 @@
 import { randomUUID } from "node:crypto";
-import { eq } from "drizzle-orm";
-import { db } from "@/db";
-import { reportRevisions, reports, reportTools, type ReportStatus, type RevisionKind, type RevisionStatus } from "@/db/schema";
+import type { ReportStatus, RevisionKind, RevisionStatus } from "@/db/schema";
 import { frozenContent, frozenTool } from "./frozen-content";
+import { insertReportWithRevisions } from "./published-fixtures";
 
 // Reports written straight to the database in a chosen editorial state, each revision with its own title and body,
 // for tests of what the catalogue and the search read (the desk's flows that make them are tested on their own).
@@ -23,7 +22,7 @@ export function uniqueWord(): string {
   return `qz${randomUUID().replace(/[^a-f]/g, "").slice(0, 8)}`;
 }
 
-export async function insertReport({
+export function insertReport({
   authorId,
   status,
   tools,
@@ -40,40 +39,18 @@ export async function insertReport({
   /** The report's own (working) body, which readers never see. */
   workingBody?: string;
 }): Promise<{ id: string; slug: string }> {
-  const slug = `search-${status}-${randomUUID().slice(0, 8)}`;
-  const [report] = await db
-    .insert(reports)
-    .values({
-      slug,
-      title: revisions[0]?.title ?? slug,
-      authorId,
-      status,
-      bodyMdx: workingBody,
-      retractedAt: status === "retracted" ? new Date() : null,
-      retractionReason: status === "retracted" ? "The clamp's scale was set wrong." : null,
-    })
-    .returning({ id: reports.id });
-  const reportId = report!.id;
-  if (tools.length) await db.insert(reportTools).values(tools.map((tool, position) => ({ reportId, toolId: tool.id, position })));
   const frozenTools = tools.map((tool) => frozenTool({ id: tool.id, slug: tool.slug, name: tool.name }));
-  const inserted = revisions.length
-    ? await db
-        .insert(reportRevisions)
-        .values(
-          revisions.map((revision) => ({
-            reportId,
-            number: revision.number,
-            kind: revision.kind ?? (revision.number === 1 ? ("original" as const) : ("correction" as const)),
-            status: revision.status,
-            changeNote: revision.number === 1 ? "First publication." : `Revision ${revision.number}.`,
-            bodyMdx: revision.bodyMdx,
-            content: frozenContent({ title: revision.title, tools: frozenTools, author: { id: authorId, name: "Fixture Reviewer" } }),
-            publishedAt: revision.status === "published" ? (revision.publishedAt ?? new Date()) : null,
-          })),
-        )
-        .returning({ id: reportRevisions.id, number: reportRevisions.number })
-    : [];
-  const currentId = inserted.find((row) => row.number === current)?.id ?? null;
-  if (currentId) await db.update(reports).set({ publishedRevisionId: currentId, firstPublishedAt: new Date() }).where(eq(reports.id, reportId));
-  return { id: reportId, slug };
+  const titleOf = (number: number) => revisions.find((revision) => revision.number === number)?.title ?? "";
+  return insertReportWithRevisions({
+    toolIds: tools.map((tool) => tool.id),
+    authorId,
+    status,
+    // Published now unless a test dates them: the catalogue's "newest result" reads these times.
+    revisions: revisions.map(({ title: _title, ...revision }) => ({ ...revision, publishedAt: revision.publishedAt ?? new Date() })),
+    current,
+    contentOf: (number) => frozenContent({ title: titleOf(number), tools: frozenTools, author: { id: authorId, name: "Fixture Reviewer" } }),
+    title: revisions[0]?.title,
+    workingBody,
+    firstPublishedAt: new Date(),
+  });
 }
