@@ -139,8 +139,8 @@ export interface CaptureAnalysis {
 export type StageObserver = (stage: string, milliseconds: number) => void;
 
 /**
- * A second thread (lib/bench/helper-thread.ts) for callers that start one: it reads the second half of a large
- * capture file and measures the harmonics while this thread does the rest. The figures are the same without it.
+ * A second thread (lib/bench/helper-thread.ts) for callers that start one: it reads the later part of a large
+ * capture file and measures the peaks and the harmonics while this thread does the rest. The figures are the same without it.
  */
 export interface AnalysisHelper {
   readRange: CaptureRangeReader;
