@@ -7,6 +7,18 @@ import { defaultSortOrder, voltageBands, type CatalogueRequest } from "@/lib/val
 /** A tool as readers name it: maker then model. Queries using it join makers. */
 export const toolName = sql<string>`${makers.name} || ' ' || ${tools.model}`;
 
+/** The maker's rated figures of a tool: part of its spec below, and what a report's spec table sets beside the measured. */
+export const toolRatedSpecColumns = {
+  ratedPowerW: tools.ratedPowerW,
+  ratedVoltageMin: tools.ratedVoltageMin,
+  ratedVoltageMax: tools.ratedVoltageMax,
+  ratedFrequenciesHz: tools.ratedFrequenciesHz,
+  ratedAirflowLpm: tools.ratedAirflowLpm,
+  temperatureMinC: tools.temperatureMinC,
+  temperatureMaxC: tools.temperatureMaxC,
+  claimedHeatUpSeconds: tools.claimedHeatUpSeconds,
+};
+
 /** What the catalogue, the tool page and GET /api/tools show of a tool: its rated specification. */
 export const toolSpecColumns = {
   slug: tools.slug,
@@ -16,14 +28,7 @@ export const toolSpecColumns = {
   category: tools.category,
   applianceType: tools.applianceType,
   motorShareAboveHalf: tools.motorShareAboveHalf,
-  ratedPowerW: tools.ratedPowerW,
-  ratedVoltageMin: tools.ratedVoltageMin,
-  ratedVoltageMax: tools.ratedVoltageMax,
-  ratedFrequenciesHz: tools.ratedFrequenciesHz,
-  ratedAirflowLpm: tools.ratedAirflowLpm,
-  temperatureMinC: tools.temperatureMinC,
-  temperatureMaxC: tools.temperatureMaxC,
-  claimedHeatUpSeconds: tools.claimedHeatUpSeconds,
+  ...toolRatedSpecColumns,
   priceMinor: tools.priceMinor,
   currency: tools.currency,
   accessories: tools.accessories,

@@ -18,21 +18,22 @@ function editableBy(user: Editor): SQL {
   return or(inArray(instruments.labId, ownLabs), and(isNull(instruments.labId), eq(instruments.createdById, user.id)))!;
 }
 
+/** What an instrument is: its spec and calibration, as the register lists it and as a run keeps it. */
+export const instrumentColumns = {
+  id: instruments.id,
+  kind: instruments.kind,
+  maker: instruments.maker,
+  model: instruments.model,
+  serialNumber: instruments.serialNumber,
+  accuracy: instruments.accuracy,
+  calibratedOn: instruments.calibratedOn,
+  calibrationDueOn: instruments.calibrationDueOn,
+};
+
 /** The register, with whether the viewer may edit each entry. */
 export async function listInstruments({ user }: { user: Editor }) {
   return db
-    .select({
-      id: instruments.id,
-      kind: instruments.kind,
-      maker: instruments.maker,
-      model: instruments.model,
-      serialNumber: instruments.serialNumber,
-      lab: labs.name,
-      accuracy: instruments.accuracy,
-      calibratedOn: instruments.calibratedOn,
-      calibrationDueOn: instruments.calibrationDueOn,
-      editable: sql<boolean>`coalesce(${editableBy(user)}, false)`,
-    })
+    .select({ ...instrumentColumns, lab: labs.name, editable: sql<boolean>`coalesce(${editableBy(user)}, false)` })
     .from(instruments)
     .leftJoin(labs, eq(labs.id, instruments.labId))
     .orderBy(asc(instruments.kind), asc(instruments.maker), asc(instruments.model));
@@ -40,17 +41,7 @@ export async function listInstruments({ user }: { user: Editor }) {
 
 export async function getInstrumentForEditing({ id, user }: { id: string; user: Editor }) {
   const [row] = await db
-    .select({
-      id: instruments.id,
-      kind: instruments.kind,
-      maker: instruments.maker,
-      model: instruments.model,
-      serialNumber: instruments.serialNumber,
-      labId: instruments.labId,
-      accuracy: instruments.accuracy,
-      calibratedOn: instruments.calibratedOn,
-      calibrationDueOn: instruments.calibrationDueOn,
-    })
+    .select({ ...instrumentColumns, labId: instruments.labId })
     .from(instruments)
     .where(and(eq(instruments.id, id), editableBy(user)))
     .limit(1);

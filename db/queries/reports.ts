@@ -1,5 +1,5 @@
 import "server-only";
-import { toolName } from "@/db/queries/catalogue";
+import { toolName, toolRatedSpecColumns } from "@/db/queries/catalogue";
 import { and, asc, desc, eq, inArray, like, notInArray, or, sql, type SQL } from "drizzle-orm";
 import type { PgSelect } from "drizzle-orm/pg-core";
 import { db, type Transaction } from "@/db";
@@ -349,14 +349,7 @@ export async function loadReportEmbedSources(tx: Transaction, { reportId }: { re
         id: tools.id,
         slug: tools.slug,
         name: toolName,
-        ratedPowerW: tools.ratedPowerW,
-        ratedVoltageMin: tools.ratedVoltageMin,
-        ratedVoltageMax: tools.ratedVoltageMax,
-        ratedFrequenciesHz: tools.ratedFrequenciesHz,
-        ratedAirflowLpm: tools.ratedAirflowLpm,
-        temperatureMinC: tools.temperatureMinC,
-        temperatureMaxC: tools.temperatureMaxC,
-        claimedHeatUpSeconds: tools.claimedHeatUpSeconds,
+        ...toolRatedSpecColumns,
       })
       .from(reportTools)
       .innerJoin(tools, eq(tools.id, reportTools.toolId))

@@ -1,5 +1,6 @@
 import "server-only";
 import { toolName } from "@/db/queries/catalogue";
+import { instrumentColumns } from "@/db/queries/instruments";
 import { and, asc, desc, eq, inArray, notInArray, sql, type SQL } from "drizzle-orm";
 import type { PgSelect } from "drizzle-orm/pg-core";
 import { db, type Transaction } from "@/db";
@@ -230,16 +231,7 @@ export async function getProtocolVersionForRun(tx: Transaction, { id }: { id: st
 export async function snapshotInstruments(tx: Transaction, { ids }: { ids: readonly string[] }) {
   if (ids.length === 0) return [];
   const rows = await tx
-    .select({
-      id: instruments.id,
-      kind: instruments.kind,
-      maker: instruments.maker,
-      model: instruments.model,
-      serialNumber: instruments.serialNumber,
-      accuracy: instruments.accuracy,
-      calibratedOn: instruments.calibratedOn,
-      calibrationDueOn: instruments.calibrationDueOn,
-    })
+    .select(instrumentColumns)
     .from(instruments)
     .where(inArray(instruments.id, [...ids]))
     .for("share");
