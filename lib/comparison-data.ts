@@ -1,6 +1,6 @@
 import "server-only";
 import { unstable_cache } from "next/cache";
-import { listPublishedAnalysesForTool, listPublishedResultsForTool } from "@/db/queries/published-results";
+import { listPublishedFiguresForTool } from "@/db/queries/published-results";
 import { chooseComparisonSide, type ComparisonSide } from "@/lib/comparison";
 import { publishedListsMaxAgeSeconds, publishedReportsCacheTag } from "@/lib/editorial";
 
@@ -12,8 +12,7 @@ import { publishedListsMaxAgeSeconds, publishedReportsCacheTag } from "@/lib/edi
 export function loadComparisonSide(toolSlug: string): Promise<ComparisonSide> {
   return unstable_cache(
     async () => {
-      const [results, analyses] = await Promise.all([listPublishedResultsForTool({ toolSlug }), listPublishedAnalysesForTool({ toolSlug })]);
-      const side = chooseComparisonSide({ results, analyses });
+      const side = chooseComparisonSide(await listPublishedFiguresForTool({ toolSlug }));
       // The page draws a waveform analysis's conduction strip, never the waveform itself, whose envelope is most of it.
       const halfCycles = side.waveform?.displaySeries?.halfCycles;
       return side.waveform ? { ...side, waveform: { ...side.waveform, displaySeries: halfCycles ? { halfCycles } : null } } : side;

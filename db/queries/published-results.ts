@@ -69,8 +69,19 @@ export async function listPublishedResultsForReport({ slug }: { slug: string }):
   return revisions.flatMap((revision) => flattenPublishedResults(revision));
 }
 
+const fullContent = sql<FrozenReportContent>`${reportRevisions.content}`;
+
 /** The finished analyses readable reports cite for one tool, with their figures and chart series. */
 export async function listPublishedAnalysesForTool({ toolSlug }: { toolSlug: string }): Promise<PublishedAnalysis[]> {
-  const revisions = await listCurrentRevisions({ content: sql<FrozenReportContent>`${reportRevisions.content}`, where: citesTool(toolSlug) });
+  const revisions = await listCurrentRevisions({ content: fullContent, where: citesTool(toolSlug) });
   return revisions.flatMap((revision) => listPublishedAnalyses(revision, { toolSlug }));
+}
+
+/** A tool's published results and cited analyses from one read of the revisions, which the analyses need whole anyway. */
+export async function listPublishedFiguresForTool({ toolSlug }: { toolSlug: string }): Promise<{ results: PublishedResult[]; analyses: PublishedAnalysis[] }> {
+  const revisions = await listCurrentRevisions({ content: fullContent, where: citesTool(toolSlug) });
+  return {
+    results: revisions.flatMap((revision) => flattenPublishedResults(revision, { toolSlug })).sort(compareResults),
+    analyses: revisions.flatMap((revision) => listPublishedAnalyses(revision, { toolSlug })),
+  };
 }
