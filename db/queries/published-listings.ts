@@ -16,7 +16,6 @@ export async function listPublishedRevisionEvents({ limit }: { limit: number }) 
   const rows = await db
     .select({
       slug: reports.slug,
-      reportStatus: reports.status,
       number: reportRevisions.number,
       kind: reportRevisions.kind,
       changeNote: reportRevisions.changeNote,
