@@ -17,6 +17,7 @@ import {
 } from "@tanstack/react-table";
 import Link from "next/link";
 import { useId, useState, type ReactNode } from "react";
+import { EmptyTableRow } from "@/components/ui/empty-table-row";
 
 declare module "@tanstack/react-table" {
   // Type parameters must match the library's declaration for the merge to work, used or not.
@@ -231,11 +232,7 @@ export function DataTable<Row>({
               </tr>
             ))}
             {rows.length === 0 ? (
-              <tr>
-                <td colSpan={columnCount} className="px-3 py-6 text-center text-ink-soft">
-                  {globalFilter ? "Nothing matches that filter." : emptyMessage}
-                </td>
-              </tr>
+              <EmptyTableRow columns={columnCount}>{globalFilter ? "Nothing matches that filter." : emptyMessage}</EmptyTableRow>
             ) : null}
           </tbody>
         </table>

@@ -1,3 +1,4 @@
+import { EmptyTableRow } from "@/components/ui/empty-table-row";
 import { TableScroller } from "@/components/ui/table-scroller";
 import { formatFrequencies, formatRange, formatRatedVoltage } from "@/lib/format";
 import type { EmbedMeasurement, EmbedTool } from "@/lib/report-embeds";
@@ -53,11 +54,7 @@ export function SpecTable({ tool }: { tool: EmbedTool }) {
             </tr>
           ))}
           {tool.measurements.length === 0 ? (
-            <tr>
-              <td colSpan={5} className="px-3 py-4 text-center text-ink-soft">
-                The analyses this report cites measured nothing on this tool yet.
-              </td>
-            </tr>
+            <EmptyTableRow columns={5} padding="py-4">The analyses this report cites measured nothing on this tool yet.</EmptyTableRow>
           ) : null}
         </tbody>
       </table>

@@ -1,3 +1,4 @@
+import { EmptyTableRow } from "@/components/ui/empty-table-row";
 import { TableScroller } from "@/components/ui/table-scroller";
 import type { VerdictRow } from "@/lib/report-embeds";
 import { embedHeadClass } from "./embed-figure";
@@ -52,11 +53,7 @@ export function VerdictTable({ rows, caption }: { rows: VerdictRow[]; caption: s
             );
           })}
           {rows.length === 0 ? (
-            <tr>
-              <td colSpan={7} className="px-3 py-4 text-center text-ink-soft">
-                No rating was judged in this analysis.
-              </td>
-            </tr>
+            <EmptyTableRow columns={7} padding="py-4">No rating was judged in this analysis.</EmptyTableRow>
           ) : null}
         </tbody>
       </table>

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { Pager } from "@/components/pager";
 import { SelectFilter } from "@/components/select-filter";
+import { EmptyTableRow } from "@/components/ui/empty-table-row";
 import { listAuditEntries } from "@/db/queries/audit";
 import { auditActionLabels, auditLogQuerySchema, auditSubjectLabels } from "@/lib/audit";
 import { formatDateTime } from "@/lib/format";
@@ -105,11 +106,7 @@ export default async function AuditLogPage({ searchParams }: PageProps<"/desk/au
               );
             })}
             {entries.length === 0 ? (
-              <tr>
-                <td colSpan={5} className="px-3 py-6 text-center text-ink-soft">
-                  Nothing recorded{query.action ? " for this action" : ""} yet.
-                </td>
-              </tr>
+              <EmptyTableRow columns={5}>Nothing recorded{query.action ? " for this action" : ""} yet.</EmptyTableRow>
             ) : null}
           </tbody>
         </table>

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { Pager } from "@/components/pager";
 import { RequestStatusBadge } from "@/components/request-status-badge";
 import { SelectFilter } from "@/components/select-filter";
+import { EmptyTableRow } from "@/components/ui/empty-table-row";
 import { countMeasurementRequestsByStatus, listMeasurementRequests } from "@/db/queries/measurement-requests";
 import { formatDate } from "@/lib/format";
 import { requirePagePermission } from "@/lib/session";
@@ -71,11 +72,7 @@ export default async function RequestTriagePage({ searchParams }: PageProps<"/de
               </tr>
             ))}
             {requests.length === 0 ? (
-              <tr>
-                <td colSpan={5} className="px-3 py-6 text-center text-ink-soft">
-                  No request has this status.
-                </td>
-              </tr>
+              <EmptyTableRow columns={5}>No request has this status.</EmptyTableRow>
             ) : null}
           </tbody>
         </table>

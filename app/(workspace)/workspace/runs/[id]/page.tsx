@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { VerdictBadge } from "@/components/report-embeds/verdict-badge";
 import { formatMeasured, formatNumber } from "@/components/report-embeds/figure-format";
 import { SafetyNotice } from "@/components/safety-notice";
+import { EmptyTableRow } from "@/components/ui/empty-table-row";
 import { listRunCaptures } from "@/db/queries/captures";
 import { getRun, getRunFormChoices, listCalibrationWarnings, listManualReadings, listRunInstruments } from "@/db/queries/runs";
 import { mean } from "@/lib/bench/statistics";
@@ -235,11 +236,7 @@ export default async function RunPage({ params }: PageProps<"/workspace/runs/[id
                 );
               })}
               {readings.length === 0 ? (
-                <tr>
-                  <td colSpan={9} className="px-3 py-6 text-center text-ink-soft">
-                    No readings yet.
-                  </td>
-                </tr>
+                <EmptyTableRow columns={9}>No readings yet.</EmptyTableRow>
               ) : null}
             </tbody>
           </table>
