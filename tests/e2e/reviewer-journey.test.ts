@@ -9,7 +9,7 @@ import { demoPassword, demoPeople } from "@/db/seeds/people-and-catalogue-data";
 import { analyses, reports } from "@/db/schema";
 import type { StoredAnalysisOptions } from "@/lib/analysis-options";
 import { analyzeCapture } from "@/lib/bench/analysis";
-import { launchBrowser, signIn, url, visible, type E2eBrowser } from "../support/e2e";
+import { browserForSuite, DESKTOP_VIEWPORT, url, visible } from "../support/e2e";
 
 const reviewer = demoPeople.find((person) => person.role === "reviewer")!;
 const fixture = path.join(import.meta.dirname, "../fixtures/captures/orrery-orm42-hot-air.csv");
@@ -25,18 +25,12 @@ function at(result: unknown, dotted: string): unknown {
 // The whole of a reviewer's job in one browser session, each step using what the one before created:
 // a tool with a photo, an instrument, a protocol, a run with a real capture, the figures, then a report.
 describe("a reviewer goes from a tool on the bench to a report ready for the editor", () => {
-  let browser: E2eBrowser;
+  const suite = browserForSuite(DESKTOP_VIEWPORT, { signInAs: { email: reviewer.email, password: demoPassword } });
   let page: Page;
-
-  beforeAll(async () => {
-    browser = await launchBrowser();
-    page = await browser.newPage();
-    await signIn(page, reviewer.email, demoPassword);
+  beforeAll(() => {
+    page = suite.page;
   });
-  afterAll(async () => {
-    await browser?.close();
-    await closeDatabase();
-  });
+  afterAll(() => closeDatabase());
 
   const model = `Journey ${mark}`;
   const clamp = { model: "HC-40 journey clamp", serial: `JRN-${mark}` };

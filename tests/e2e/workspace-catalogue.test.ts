@@ -1,9 +1,9 @@
 import { randomUUID } from "node:crypto";
 import type { Page } from "playwright-core";
 import sharp from "sharp";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { demoPassword, demoPeople } from "@/db/seeds/people-and-catalogue-data";
-import { launchBrowser, signIn, url, visible, type E2eBrowser } from "../support/e2e";
+import { browserForSuite, DESKTOP_VIEWPORT, launchBrowser, signIn, url, visible } from "../support/e2e";
 
 const reviewer = demoPeople.find((person) => person.role === "reviewer")!;
 const reader = demoPeople.find((person) => person.role === "reader")!;
@@ -11,15 +11,11 @@ const mark = randomUUID().slice(0, 6);
 
 
 describe("a reviewer fills the workspace catalogue", () => {
-  let browser: E2eBrowser;
+  const suite = browserForSuite(DESKTOP_VIEWPORT, { signInAs: { email: reviewer.email, password: demoPassword } });
   let page: Page;
-
-  beforeAll(async () => {
-    browser = await launchBrowser();
-    page = await browser.newPage();
-    await signIn(page, reviewer.email, demoPassword);
+  beforeAll(() => {
+    page = suite.page;
   });
-  afterAll(async () => browser?.close());
 
   it("adds a tool after being told what to fix, then a photo that the public page serves in web sizes", async () => {
     const model = `Aeris E2E ${mark}`;
@@ -60,7 +56,7 @@ describe("a reviewer fills the workspace catalogue", () => {
     const image = page.getByRole("img", { name: "Front panel of the test station with its handle in the cradle" });
     const srcset = await image.getAttribute("srcset");
     expect(srcset).toMatch(/\/api\/tool-photos\/[0-9a-f-]+\/480 480w, .*\/960 960w, .*\/1600 1600w$/);
-    const largest = await browser.context.request.get(url(srcset!.split(", ").at(-1)!.split(" ")[0]!));
+    const largest = await suite.context.request.get(url(srcset!.split(", ").at(-1)!.split(" ")[0]!));
     expect(largest.headers()["content-type"]).toBe("image/webp");
     const stored = await sharp(await largest.body()).metadata();
     expect(stored).toMatchObject({ format: "webp", width: 1600, height: 1067 });

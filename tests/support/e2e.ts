@@ -49,21 +49,34 @@ export async function launchBrowser(options: { viewport?: { width: number; heigh
   };
 }
 
-/** One browser at this size for the tests of a describe block: opened before them, closed (profile removed) after. */
-export function browserForSuite(viewport: { width: number; height: number }): { readonly page: Page } {
+/**
+ * One browser at this size for the tests of a describe block: opened before them (signed in when `signInAs` is given),
+ * closed (profile removed) after.
+ */
+export function browserForSuite(
+  viewport: { width: number; height: number },
+  { signInAs }: { signInAs?: { email: string; password: string } } = {},
+): { readonly page: Page; readonly context: BrowserContext } {
   let browser: E2eBrowser | undefined;
   let page: Page | undefined;
   beforeAll(async () => {
     browser = await launchBrowser({ viewport });
     page = await browser.newPage();
+    if (signInAs) await signIn(page, signInAs.email, signInAs.password);
   });
   afterAll(async () => {
     await browser?.close();
   });
+  const open = () => {
+    if (!browser || !page) throw new Error("the suite's browser is not open yet");
+    return { browser, page };
+  };
   return {
     get page() {
-      if (!page) throw new Error("the suite's browser is not open yet");
-      return page;
+      return open().page;
+    },
+    get context() {
+      return open().browser.context;
     },
   };
 }
