@@ -5,7 +5,7 @@ import { comparisonRun } from "@/db/seeds/comparisons-data";
 import { demoMakers, demoTools } from "@/db/seeds/people-and-catalogue-data";
 import { demoProtocols } from "@/db/seeds/workspace-catalogue-data";
 import { compareRunConditions, type ComparedRun } from "@/lib/comparability";
-import { DESKTOP_VIEWPORT, PHONE_VIEWPORT, launchBrowser, url, visible, type E2eBrowser } from "../support/e2e";
+import { DESKTOP_VIEWPORT, PHONE_VIEWPORT, hydrated, launchBrowser, url, visible, type E2eBrowser } from "../support/e2e";
 
 // The seeded runs behind each published demo report: the Wrenford and Cedar Hollow labs' runs differ in protocol and
 // supply; the Wrenford lab's second tool was measured under the same protocol version and conditions as its first.
@@ -45,6 +45,7 @@ const quantitiesText = (page: Page) => page.getByRole("region", { name: "Rated a
 /** Types into a picker and waits for the suggestions the route handler answers with. */
 async function typeInPicker(page: Page, label: string, text: string) {
   const input = page.getByRole("combobox", { name: label });
+  await hydrated(input);
   const answered = page.waitForResponse((response) => {
     const requested = new URL(response.url());
     return requested.pathname === "/api/tools" && requested.searchParams.get("q") === text && response.status() === 200;

@@ -1,7 +1,7 @@
 import { mkdtemp, rm } from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
-import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { chromium, type BrowserContext, type Locator, type Page } from "playwright-core";
 import { afterAll, beforeAll, expect } from "vitest";
 
 // Not BASE_URL: vitest fills process.env.BASE_URL with Vite's public base path ("/").
@@ -97,6 +97,16 @@ export async function signIn(page: Page, email: string, password: string): Promi
     page.waitForURL((current) => !current.pathname.startsWith("/sign-in"), { timeout: 15_000 }),
     page.getByRole("button", { name: "Sign in" }).click(),
   ]);
+}
+
+/**
+ * Waits until React has hydrated this element. A change made before then reaches no handler and is lost, as it would
+ * be for a reader quicker than the page's JavaScript, so a test that acts at once on a fresh page waits for this.
+ */
+export async function hydrated(locator: Locator, timeout = 20_000): Promise<void> {
+  await expect
+    .poll(() => locator.evaluate((element) => Object.keys(element).some((key) => key.startsWith("__reactProps$"))), { timeout })
+    .toBe(true);
 }
 
 /** Waits until the first element with this text is visible. */
