@@ -94,36 +94,39 @@ export async function readCapture(data: CaptureData, options: CaptureReadOptions
 const READ_CHUNK_BYTES = 1 << 20;
 
 /**
- * Reads rows [start, end) of a capture file on another thread: the header already read by the caller fixes the
- * format and the row and line numbers before countFrom; bytes [countFrom, start) are the caller's share, whose lines
- * are counted here to place this range's rows and line numbers.
+ * Reads rows [start, end) of a capture file, on another thread if need be: the header already read by the caller
+ * fixes the format. The rows are stored from index `row` of the shared channels, and their line numbers count from
+ * the range's start, since only the caller learns how many lines come before it.
  */
 export type CaptureRangeReader = (request: CaptureRangeRequest) => Promise<CaptureRangeTally>;
 
 export interface CaptureRangeRequest {
   path: string;
-  countFrom: number;
   start: number;
   end: number;
-  /** Rows stored and lines read before countFrom. */
+  /** Where the range's first row is stored. */
   row: number;
-  line: number;
+  /** How many rows it may store before it would write over the next range's; null: as many as the channels hold. */
+  rowLimit: number | null;
   format: RowFormat;
   channels: SharedChannels;
 }
 
-/** What a range of rows added, and the first problem in it (a CaptureError's problem and line). */
+/**
+ * What a range of rows added, and the first problem in it (a CaptureError's problem and line). Lines are counted
+ * from the range's start (its first line is 1); `full` says it stopped at its row limit before its end.
+ */
 export interface CaptureRangeTally {
-  counted: number;
+  row: number;
   rows: number;
-  /** The line the range ended on. */
-  line: number;
+  lines: number;
   firstTime: number;
   firstTimeLine: number;
   lastTime: number;
   largestInterval: number;
   largestIntervalLine: number;
   error: { problem: string; line: number | null } | null;
+  full: boolean;
 }
 
 /** How data rows are laid out, fixed by the header: enough to read a range of them anywhere, another thread included. */
@@ -146,11 +149,10 @@ export interface SharedChannels {
 
 /** Below this size a second thread costs more to start than it saves. */
 const SPLIT_MIN_BYTES = 8 << 20;
-/**
- * The helper thread counts the lines of this thread's share before reading its own (counting costs about a quarter
- * of parsing), so this thread takes the larger share and both finish together.
- */
-const OWN_SHARE = 0.57;
+/** This thread's share of the rows after the first MiB: the helper starts later and goes on to the harmonics. */
+const OWN_SHARE = 0.5;
+/** Rows set aside for this thread's share beyond what the first MiB's rows foretell, so a share rarely needs reading twice. */
+const RESERVE_MARGIN = 1.05;
 
 /**
  * Reads a capture file. Given a range reader (a helper thread), a large file's rows are read in two ranges at once,
@@ -177,14 +179,24 @@ export async function readCaptureFile(path: string, options: CaptureReadOptions 
       from = bytesRead - reader.dropCarry();
       const middle = reader.inRows() ? await splitPoint(handle, from, size) : null;
       if (middle !== null) {
-        const request = { path, countFrom: from, ...reader.position() };
-        const [own, helper] = await Promise.allSettled([
-          readCaptureRange({ ...request, start: from, end: middle }),
-          readRange({ ...request, start: middle, end: size }),
-        ]);
+        // The helper stores its rows after those set aside for this thread's share, as the helper cannot know where
+        // this share's rows end without reading it; the gap between the two closes when they are joined.
+        const { row, format, channels } = reader.position();
+        const reserved = reader.rowsToReserve(middle - from);
+        const readOwn = (rowLimit: number) => readCaptureRange({ path, start: from, end: middle, row, rowLimit, format, channels });
+        const [own, helper] = await Promise.allSettled([readOwn(reserved), readRange({ path, start: middle, end: size, row: row + reserved, rowLimit: null, format, channels })]);
         if (own.status === "rejected") throw own.reason;
         if (helper.status === "rejected") throw helper.reason;
-        reader.joinRanges(own.value, helper.value);
+        let ownTally = own.value;
+        let helperTally = helper.value;
+        if (helperTally.full) throw new Error("the helper's range ran past the shared arrays, which are sized for every row the file can hold");
+        if (ownTally.full) {
+          // More rows than the first MiB foretold: move the helper's rows past every row this share can hold, then read it again.
+          const most = Math.min(reader.rowsAtMost(middle - from), await countLines(handle, from, middle));
+          helperTally = reader.moveRange(helperTally, row + most);
+          ownTally = await readOwn(most);
+        }
+        reader.joinRanges(ownTally, helperTally);
         return reader.finish();
       }
     }
@@ -226,19 +238,27 @@ async function readChunks(handle: FileHandle, reader: CaptureReader, from: numbe
 export async function readCaptureRange(request: CaptureRangeRequest): Promise<CaptureRangeTally> {
   const handle = await open(request.path, "r");
   try {
-    const counted = request.countFrom < request.start ? await countLines(handle, request.countFrom, request.start) : 0;
-    const reader = new CaptureReader({}, { range: { format: request.format, channels: request.channels, row: request.row + counted, line: request.line + counted } });
+    const reader = new CaptureReader({}, { range: request });
     try {
       await readChunks(handle, reader, request.start, request.end);
       reader.flushLastLine();
     } catch (error) {
+      if (error instanceof RowLimitReached) return reader.tally(null, true);
       if (!(error instanceof CaptureError)) throw error;
-      return reader.tally(counted, { problem: error.problem, line: error.line });
+      return reader.tally({ problem: error.problem, line: error.line }, false);
     }
-    return reader.tally(counted, null);
+    return reader.tally(null, false);
   } finally {
     await handle.close();
   }
+}
+
+/** A range reached its row limit: not a problem with the file, so not a CaptureError. */
+class RowLimitReached extends Error {}
+
+/** The most rows `bytes` of data can hold: a row takes at least a delimiter between columns, a character in each mapped one and a line feed. */
+function rowsAtMost(bytes: number, columnCount: number): number {
+  return Math.floor(bytes / (columnCount + 1)) + 1;
 }
 
 async function countLines(handle: FileHandle, from: number, to: number): Promise<number> {
@@ -379,15 +399,17 @@ class CaptureReader {
   private firstRow = 0;
   private firstTimeLine = 0;
   private readonly sharedRowsForBytes: number | null = null;
+  /** Reads a range of a file for readCaptureRange, into channels it was given. */
+  private readonly readsRange: boolean = false;
 
-  constructor(options: CaptureReadOptions, shared?: { sharedRowsForBytes: number } | { range: { format: RowFormat; channels: SharedChannels; row: number; line: number } }) {
+  constructor(options: CaptureReadOptions, shared?: { sharedRowsForBytes: number } | { range: Pick<CaptureRangeRequest, "format" | "channels" | "row" | "rowLimit"> }) {
     this.options = options;
     if (shared === undefined) return;
     if ("sharedRowsForBytes" in shared) {
       this.sharedRowsForBytes = shared.sharedRowsForBytes;
       return;
     }
-    const { format, channels, row, line } = shared.range;
+    const { format, channels, row, rowLimit } = shared.range;
     this.sawContent = true;
     this.inData = true;
     this.bytesSeen = 1;
@@ -404,10 +426,10 @@ class CaptureReader {
     this.current = channels.current;
     this.voltage = channels.voltage;
     this.temperature = channels.temperature;
-    this.capacity = (channels.current ?? channels.voltage ?? channels.temperature)?.length ?? 0;
+    this.capacity = Math.min((channels.current ?? channels.voltage ?? channels.temperature)?.length ?? 0, row + (rowLimit ?? Infinity));
     this.rows = row;
     this.firstRow = row;
-    this.line = line;
+    this.readsRange = true;
   }
 
   inRows(): boolean {
@@ -422,10 +444,9 @@ class CaptureReader {
   }
 
   /** Where the rows read so far end, and their format: the start of a range for readCaptureRange. */
-  position(): { row: number; line: number; format: RowFormat; channels: SharedChannels } {
+  position(): Pick<CaptureRangeRequest, "row" | "format" | "channels"> {
     return {
       row: this.rows,
-      line: this.line,
       format: {
         delimiter: this.delimiter,
         commaIsDecimal: this.commaIsDecimal,
@@ -449,53 +470,68 @@ class CaptureReader {
     this.process(last, 0, last.length);
   }
 
-  tally(counted: number, error: CaptureRangeTally["error"]): CaptureRangeTally {
+  tally(error: CaptureRangeTally["error"], full: boolean): CaptureRangeTally {
     return {
-      counted,
+      row: this.firstRow,
       rows: this.rows - this.firstRow,
-      line: this.line,
+      lines: this.line,
       firstTime: this.firstTime,
       firstTimeLine: this.firstTimeLine,
       lastTime: this.lastTime,
       largestInterval: this.largestInterval,
       largestIntervalLine: this.largestIntervalLine,
       error,
+      full,
     };
   }
 
+  /** The most rows `bytes` more of data can hold. */
+  rowsAtMost(bytes: number): number {
+    return rowsAtMost(bytes, this.columnCount);
+  }
+
+  /** Rows to set aside for `bytes` more of data: as many as the rows so far foretell, with a margin, but no more than can fit. */
+  rowsToReserve(bytes: number): number {
+    const foretold = this.rows > 0 && this.dataBytes > 0 ? Math.ceil(((bytes * this.rows) / this.dataBytes) * RESERVE_MARGIN) + 1024 : Infinity;
+    return Math.min(foretold, this.rowsAtMost(bytes));
+  }
+
+  /** Moves a range's stored rows to start at `row`. */
+  moveRange(range: CaptureRangeTally, row: number): CaptureRangeTally {
+    if (range.row !== row) {
+      for (const channel of [this.current, this.voltage, this.temperature]) channel?.copyWithin(row, range.row, range.row + range.rows);
+    }
+    return { ...range, row };
+  }
+
   /**
-   * Takes in the two ranges read after this reader's rows, in file order, as if it had read them itself: the helper's
-   * rows move down over lines of the first range that held no row (blank lines, comments), the time checks run
-   * across both joins, and the first rejection in file order is thrown.
+   * Takes in the ranges read after this reader's rows, in file order, as if it had read them itself: each range's
+   * rows move down to follow the rows before them, its line numbers are counted on from the lines before it, the
+   * time checks run across every join, and the first rejection in file order is thrown.
    */
   joinRanges(...ranges: CaptureRangeTally[]): void {
-    const splitAt = this.rows;
     for (const range of ranges) {
-      const at = this.rows;
-      // Each range counted the lines from the split to its start, and stored its rows that far past the split.
-      const storedAt = splitAt + range.counted;
-      if (storedAt !== at) {
-        for (const channel of [this.current, this.voltage, this.temperature]) channel?.copyWithin(at, storedAt, storedAt + range.rows);
-      }
+      this.moveRange(range, this.rows);
+      const lineOf = (line: number) => this.line + line;
       if (range.rows > 0 && this.hasTime) {
         if (this.rows === 0) this.firstTime = range.firstTime;
         else {
           const interval = range.firstTime - this.lastTime;
-          if (!(interval > 0)) throw timeNotIncreasing(range.firstTime, this.lastTime, range.firstTimeLine);
+          if (!(interval > 0)) throw timeNotIncreasing(range.firstTime, this.lastTime, lineOf(range.firstTimeLine));
           if (interval > this.largestInterval) {
             this.largestInterval = interval;
-            this.largestIntervalLine = range.firstTimeLine;
+            this.largestIntervalLine = lineOf(range.firstTimeLine);
           }
         }
       }
-      if (range.error !== null) throw new CaptureError(range.error.problem, range.error.line);
+      if (range.error !== null) throw new CaptureError(range.error.problem, range.error.line === null ? null : lineOf(range.error.line));
       if (range.largestInterval > this.largestInterval) {
         this.largestInterval = range.largestInterval;
-        this.largestIntervalLine = range.largestIntervalLine;
+        this.largestIntervalLine = lineOf(range.largestIntervalLine);
       }
       if (range.rows > 0) this.lastTime = range.lastTime;
       this.rows += range.rows;
-      this.line = range.line;
+      this.line = lineOf(range.lines);
     }
   }
 
@@ -797,9 +833,9 @@ class CaptureReader {
     this.scaleTemperature = options.temperature?.scale ?? 1;
 
     const shared = this.sharedRowsForBytes;
-    // A row takes at least a delimiter between columns, a character in each mapped one and a line feed: for shared
-    // arrays, which cannot grow under another thread's writes, that bounds the rows. Pages never written take no memory.
-    this.capacity = shared === null ? INITIAL_CAPACITY : Math.floor(shared / (this.columnCount + 1)) + 1;
+    // Shared arrays cannot grow under another thread's writes, so they are sized for the most rows the file can
+    // hold; pages never written take no memory.
+    this.capacity = shared === null ? INITIAL_CAPACITY : this.rowsAtMost(shared);
     const allocate = () =>
       shared === null ? new Float64Array(this.capacity) : new Float64Array(new SharedArrayBuffer(this.capacity * Float64Array.BYTES_PER_ELEMENT));
     if (current !== null) this.current = allocate();
@@ -809,6 +845,7 @@ class CaptureReader {
 
   /** Sizes the arrays from the bytes a row takes so far when the total size is known, else grows by half. */
   private grow(dataBytesRead: number): void {
+    if (this.readsRange) throw new RowLimitReached();
     if ((this.current ?? this.voltage ?? this.temperature)?.buffer instanceof SharedArrayBuffer) throw new Error("shared capture arrays are sized for every row the file can hold; a row beyond that is a bug");
     const hint = this.options.sizeHintBytes;
     let next = Math.ceil(this.capacity * 1.5);

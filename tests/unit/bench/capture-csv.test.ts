@@ -92,6 +92,31 @@ describe("reading captures", () => {
     expect(Array.from(capture.current ?? [])).toEqual([1.5, -25, 0.25, 3.141592653589793, 1234567890123456800, 7e-30]);
   });
 
+  it("reads every length of digit run before and after the decimal mark as JavaScript's own parser does", async () => {
+    // Runs of 0 to 17 digits on either side of the mark, so across the 15 digits where the exact slow path takes
+    // over, with points and with commas as the mark, and in the last line of a buffer with nothing after it.
+    let seed = 7;
+    const digit = () => {
+      seed = (seed * 1103515245 + 12345) % 2147483648;
+      return String(seed % 10);
+    };
+    const run = (length: number) => Array.from({ length }, digit).join("");
+    const texts: string[] = [];
+    for (let whole = 0; whole <= 17; whole++) {
+      for (let fraction = 0; fraction <= 17; fraction++) {
+        if (whole + fraction === 0) continue;
+        const sign = (whole + fraction) % 3 === 0 ? "-" : "";
+        texts.push(`${sign}${run(whole)}${fraction > 0 ? `.${run(fraction)}` : ""}`);
+      }
+    }
+    const expected = texts.map((text) => Number(text));
+    // An array of its own, so nothing follows the last line in its buffer.
+    const points = await readCapture(new TextEncoder().encode(["time,current", ...texts.map((text, k) => `${k},${text}`)].join("\n")));
+    expect(Array.from(points.current ?? [])).toEqual(expected);
+    const commas = await readCapture(["time;current", ...texts.map((text, k) => `${k};${text.replace(".", ",")}`)].join("\r\n"));
+    expect(Array.from(commas.current ?? [])).toEqual(expected);
+  });
+
   it("skips blank, blank-looking and comment lines among the rows", async () => {
     const capture = await readCapture("time,current\n0,1\n\n   \t\r\n# marker: load step\n0.001,2\n");
     expect(Array.from(capture.current ?? [])).toEqual([1, 2]);

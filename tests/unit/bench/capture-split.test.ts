@@ -6,7 +6,15 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { analyzeCapture } from "@/lib/bench/analysis";
-import { CaptureError, readCaptureFile, readCaptureRange, type Capture, type CaptureRangeReader, type CaptureRangeTally } from "@/lib/bench/capture-csv";
+import {
+  CaptureError,
+  readCaptureFile,
+  readCaptureRange,
+  type Capture,
+  type CaptureRangeReader,
+  type CaptureRangeRequest,
+  type CaptureRangeTally,
+} from "@/lib/bench/capture-csv";
 import { startHelperThread, type HelperThread } from "@/lib/bench/helper-thread";
 
 const RATE = 20_000;
@@ -50,17 +58,25 @@ function write(name: string, text: string): string {
   return path;
 }
 
-/** Counts the ranges read, so a test knows the file really was split. */
-function counting(reader: CaptureRangeReader): { reader: CaptureRangeReader; tallies: CaptureRangeTally[] } {
+/** Keeps the ranges asked of the helper and what it answered, so a test knows the file really was split, and where. */
+function counting(reader: CaptureRangeReader): { reader: CaptureRangeReader; requests: CaptureRangeRequest[]; tallies: CaptureRangeTally[] } {
+  const requests: CaptureRangeRequest[] = [];
   const tallies: CaptureRangeTally[] = [];
   return {
+    requests,
     tallies,
     reader: async (request) => {
+      requests.push(request);
       const tally = await reader(request);
       tallies.push(tally);
       return tally;
     },
   };
+}
+
+/** Data rows (0-based) before this byte of the capture's text: the header takes three lines. */
+function rowsBefore(text: string, byte: number): number {
+  return text.slice(0, byte).split("\n").length - 1 - 3;
 }
 
 async function rejectionOf(read: Promise<Capture>): Promise<CaptureError> {
@@ -127,10 +143,10 @@ describe("reading a large capture in two ranges", { timeout: 60_000 }, () => {
 
   it("checks time across the join: a repeated time at the helper's first row, and a gap there", async () => {
     const plain = captureText();
-    const { reader, tallies } = counting(readCaptureRange);
+    const { reader, requests } = counting(readCaptureRange);
     await readCaptureFile(write("probe.csv", plain), {}, reader);
     // The helper's first row, 0-based among the data rows.
-    const joinRow = tallies[0]!.firstTimeLine - 4;
+    const joinRow = rowsBefore(plain, requests[0]!.start);
     for (const edit of [
       (row: number, text: string) => (row === joinRow ? text.replace(/^[^,]*/, ((row - 1) / RATE).toFixed(5)) : text),
       (row: number, text: string) => (row >= joinRow ? text.replace(/^[^,]*/, ((row + 50) / RATE).toFixed(5)) : text),
@@ -142,6 +158,18 @@ describe("reading a large capture in two ranges", { timeout: 60_000 }, () => {
       expect(split.message).toBe(whole.message);
       expect(split.line).toBe(whole.line);
     }
+  });
+
+  it("reads this thread's share again when it holds more rows than its first MiB foretold, the helper's rows moved out of the way", async () => {
+    // Padded numbers in the first 60 000 rows make the first MiB's rows long, so the rows set aside for this thread's
+    // share run out before its end.
+    const text = captureText({ edit: (row, line) => (row < 60_000 ? line.split(",").map((field) => `   ${field}`).join(",") : line) });
+    const { reader, requests, tallies } = counting(helper.readRange);
+    const split = await readCaptureFile(write("padded.csv", text), {}, reader);
+    const firstRow = rowsBefore(text, requests[0]!.start);
+    expect(requests[0]!.row).toBeLessThan(firstRow);
+    expect(tallies[0]!.rows).toBe(ROWS - firstRow);
+    expectSameCapture(split, await readCaptureFile(write("padded.csv", text), {}));
   });
 
   it("gives the CLI's analysis object unchanged when the helper reads and measures the harmonics", async () => {
