@@ -3,7 +3,7 @@
 // it returns is the CLI's --json output, documented in the README.
 
 import { z } from "zod";
-import { assertEnoughCycles, CaptureError, readCapture, readCaptureFile, type Capture, type CaptureData, type CaptureRangeReader } from "./capture-csv";
+import { assertEnoughCycles, CaptureError, readCapture, readCaptureFile, type Capture, type CaptureData, type CaptureBlocksReader } from "./capture-csv";
 import {
   currentFigures,
   halfCycleBoundaries,
@@ -139,11 +139,12 @@ export interface CaptureAnalysis {
 export type StageObserver = (stage: string, milliseconds: number) => void;
 
 /**
- * A second thread (lib/bench/helper-thread.ts) for callers that start one: it reads the later part of a large
- * capture file and measures the peaks and the harmonics while this thread does the rest. The figures are the same without it.
+ * A second thread (lib/bench/helper-thread.ts) for callers that start one: it reads blocks of a large capture file
+ * beside this thread, and measures the peaks and the harmonics while this thread does the rest. The figures are the
+ * same without it.
  */
 export interface AnalysisHelper {
-  readRange: CaptureRangeReader;
+  readBlocks: CaptureBlocksReader;
   /** Starts measureHarmonics or peakMagnitude on the helper; the function returned waits for the result. Signals must be on shared memory. */
   startHarmonics(input: HarmonicsInput): () => HarmonicSpectrum;
   startPeak(signal: Float64Array): () => number;
@@ -174,7 +175,7 @@ export async function readCaptureForAnalysis(source: CaptureSource, options: Ana
   const started = performance.now();
   const capture =
     "path" in source
-      ? await readCaptureFile(source.path, readOptions, helper?.readRange)
+      ? await readCaptureFile(source.path, readOptions, helper?.readBlocks)
       : await readCapture(source.data, { ...readOptions, sizeHintBytes: source.sizeBytes });
   observer?.("read", performance.now() - started);
   return capture;

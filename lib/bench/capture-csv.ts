@@ -94,29 +94,36 @@ export async function readCapture(data: CaptureData, options: CaptureReadOptions
 const READ_CHUNK_BYTES = 1 << 20;
 
 /**
- * Reads rows [start, end) of a capture file, on another thread if need be: the header already read by the caller
- * fixes the format. The rows are stored from index `row` of the shared channels, and their line numbers count from
- * the range's start, since only the caller learns how many lines come before it.
+ * Reads the blocks of a capture file that the helper's side claims, on another thread (see readClaimedBlocks); the
+ * header already read by the caller fixes the format.
  */
-export type CaptureRangeReader = (request: CaptureRangeRequest) => Promise<CaptureRangeTally>;
+export type CaptureBlocksReader = (plan: CaptureBlockPlan) => Promise<CaptureBlockTally[]>;
 
-export interface CaptureRangeRequest {
+/**
+ * The rows after a large file's first MiB, cut at line starts into blocks that two threads claim one at a time,
+ * this thread from the front and the helper from the back, so both stay busy until they meet whatever the speed
+ * of each. The front stores its rows straight after the rows before them; a block read from the back is stored
+ * at `rows[k]`, set aside from the line density sampled around it, as the rows before it are not known until
+ * they are read.
+ */
+export interface CaptureBlockPlan {
   path: string;
-  start: number;
-  end: number;
-  /** Where the range's first row is stored. */
-  row: number;
-  /** How many rows it may store before it would write over the next range's; null: as many as the channels hold. */
-  rowLimit: number | null;
+  /** Byte offsets: block k holds the lines starting in [starts[k], starts[k + 1]). */
+  starts: number[];
+  /** Where block k's rows are stored when read from the back; rows[k + 1] − rows[k] rows are set aside for it. */
+  rows: number[];
+  /** The next block from the front (low 16 bits) and one past the next from the back (high 16 bits). */
+  claims: Int32Array;
   format: RowFormat;
   channels: SharedChannels;
 }
 
 /**
- * What a range of rows added, and the first problem in it (a CaptureError's problem and line). Lines are counted
- * from the range's start (its first line is 1); `full` says it stopped at its row limit before its end.
+ * What a block added, and the first problem in it (a CaptureError's problem and line). Lines are counted from the
+ * block's start (its first line is 1); `full` says it stopped at the rows set aside for it, before its end.
  */
-export interface CaptureRangeTally {
+export interface CaptureBlockTally {
+  block: number;
   row: number;
   rows: number;
   lines: number;
@@ -149,16 +156,19 @@ export interface SharedChannels {
 
 /** Below this size a second thread costs more to start than it saves. */
 const SPLIT_MIN_BYTES = 8 << 20;
-/** This thread's share of the rows after the first MiB: the helper starts later and goes on to the harmonics. */
-const OWN_SHARE = 0.5;
-/** Rows set aside for this thread's share beyond what the first MiB's rows foretell, so a share rarely needs reading twice. */
+/** Small enough that the thread done first waits little for the other, large enough that a block's start-up is lost in it. */
+const BLOCK_BYTES = 4 << 20;
+/** Bytes read at each block boundary, to find a line start and the density of lines there. */
+const SAMPLE_BYTES = 64 << 10;
+/** Rows set aside for a block beyond what the density around it foretells, so that a block rarely overflows. */
 const RESERVE_MARGIN = 1.05;
+const RESERVE_EXTRA_ROWS = 1024;
 
 /**
- * Reads a capture file. Given a range reader (a helper thread), a large file's rows are read in two ranges at once,
- * into shared arrays; the result, rejections included, is the same as reading it in one pass.
+ * Reads a capture file. Given a blocks reader (a helper thread), a large file's rows are read by both threads at
+ * once, into shared arrays; the result, rejections included, is the same as reading it in one pass.
  */
-export async function readCaptureFile(path: string, options: CaptureReadOptions = {}, readRange?: CaptureRangeReader): Promise<Capture> {
+export async function readCaptureFile(path: string, options: CaptureReadOptions = {}, readBlocks?: CaptureBlocksReader): Promise<Capture> {
   let handle;
   try {
     handle = await open(path, "r");
@@ -168,7 +178,7 @@ export async function readCaptureFile(path: string, options: CaptureReadOptions 
   }
   try {
     const { size } = await handle.stat();
-    const split = readRange !== undefined && size >= SPLIT_MIN_BYTES;
+    const split = readBlocks !== undefined && size >= SPLIT_MIN_BYTES;
     const reader = new CaptureReader({ ...options, sizeHintBytes: options.sizeHintBytes ?? size }, split ? { sharedRowsForBytes: size } : undefined);
     // Where the reading in one pass starts: after the header and first rows when the file could not be split.
     let from = 0;
@@ -177,26 +187,16 @@ export async function readCaptureFile(path: string, options: CaptureReadOptions 
       const { bytesRead } = await handle.read(first, 0, READ_CHUNK_BYTES, 0);
       reader.push(first.subarray(0, bytesRead));
       from = bytesRead - reader.dropCarry();
-      const middle = reader.inRows() ? await splitPoint(handle, from, size) : null;
-      if (middle !== null) {
-        // The helper stores its rows after those set aside for this thread's share, as the helper cannot know where
-        // this share's rows end without reading it; the gap between the two closes when they are joined.
-        const { row, format, channels } = reader.position();
-        const reserved = reader.rowsToReserve(middle - from);
-        const readOwn = (rowLimit: number) => readCaptureRange({ path, start: from, end: middle, row, rowLimit, format, channels });
-        const [own, helper] = await Promise.allSettled([readOwn(reserved), readRange({ path, start: middle, end: size, row: row + reserved, rowLimit: null, format, channels })]);
+      const plan = reader.inRows() ? await planBlocks(handle, path, reader, from, size) : null;
+      if (plan !== null) {
+        const [own, helper] = await Promise.allSettled([readClaimedBlocks(plan, "front"), readBlocks(plan)]);
         if (own.status === "rejected") throw own.reason;
         if (helper.status === "rejected") throw helper.reason;
-        let ownTally = own.value;
-        let helperTally = helper.value;
-        if (helperTally.full) throw new Error("the helper's range ran past the shared arrays, which are sized for every row the file can hold");
-        if (ownTally.full) {
-          // More rows than the first MiB foretold: move the helper's rows past every row this share can hold, then read it again.
-          const most = Math.min(reader.rowsAtMost(middle - from), await countLines(handle, from, middle));
-          helperTally = reader.moveRange(helperTally, row + most);
-          ownTally = await readOwn(most);
-        }
-        reader.joinRanges(ownTally, helperTally);
+        const tallies = [...own.value, ...helper.value].sort((a, b) => a.block - b.block);
+        const full = tallies.findIndex((tally) => tally.full);
+        reader.joinBlocks(...(full < 0 ? tallies : tallies.slice(0, full)));
+        // A block held more rows than were set aside for it: from its start the file is read again here, in one pass.
+        if (full >= 0) await readChunks(handle, reader, plan.starts[full] as number);
         return reader.finish();
       }
     }
@@ -207,19 +207,13 @@ export async function readCaptureFile(path: string, options: CaptureReadOptions 
   }
 }
 
-/** Where the helper's range starts: the line after the byte OWN_SHARE of the way through the rows; null if no line ends there. */
-async function splitPoint(handle: FileHandle, start: number, size: number): Promise<number | null> {
-  const probe = Buffer.allocUnsafe(64 << 10);
-  const at = start + Math.floor((size - start) * OWN_SHARE);
-  const { bytesRead } = await handle.read(probe, 0, probe.length, at);
-  const newline = probe.subarray(0, bytesRead).indexOf(LF);
-  return newline < 0 || at + newline + 1 >= size ? null : at + newline + 1;
+/** Two buffers in turn, the next chunk read on libuv's thread pool while this one is parsed. */
+function chunkBuffers(): [Buffer, Buffer] {
+  return [Buffer.allocUnsafe(READ_CHUNK_BYTES), Buffer.allocUnsafe(READ_CHUNK_BYTES)];
 }
 
-async function readChunks(handle: FileHandle, reader: CaptureReader, from: number, to = Infinity): Promise<void> {
-  // Two buffers in turn, the next chunk read on libuv's thread pool while this one is parsed; the
-  // reader copies only a line cut at a chunk's end, so a buffer is free again once pushed.
-  const buffers = [Buffer.allocUnsafe(READ_CHUNK_BYTES), Buffer.allocUnsafe(READ_CHUNK_BYTES)];
+async function readChunks(handle: FileHandle, reader: CaptureReader, from: number, to = Infinity, buffers = chunkBuffers()): Promise<void> {
+  // The reader copies only a line cut at a chunk's end, so a buffer is free again once pushed.
   let position = from;
   const length = () => Math.min(READ_CHUNK_BYTES, to - position);
   let reading = handle.read(buffers[0] as Buffer, 0, length(), position);
@@ -234,44 +228,93 @@ async function readChunks(handle: FileHandle, reader: CaptureReader, from: numbe
   }
 }
 
-/** Reads one range of rows (see CaptureRangeReader); a rejection is returned in the tally, not thrown, so it can cross threads. */
-export async function readCaptureRange(request: CaptureRangeRequest): Promise<CaptureRangeTally> {
-  const handle = await open(request.path, "r");
+/** Cuts the rows from `from` into blocks at line starts and sets rows aside for each; null if there is only one. */
+async function planBlocks(handle: FileHandle, path: string, reader: CaptureReader, from: number, size: number): Promise<CaptureBlockPlan | null> {
+  const nominal = Array.from({ length: Math.ceil((size - from) / BLOCK_BYTES) - 1 }, (_, k) => from + (k + 1) * BLOCK_BYTES);
+  const samples = await Promise.all(
+    nominal.map(async (at) => {
+      // Its own ArrayBuffer, so countLineFeeds's word view starts aligned.
+      const bytes = new Uint8Array(SAMPLE_BYTES);
+      const { bytesRead } = await handle.read(bytes, 0, SAMPLE_BYTES, at);
+      const newline = bytes.subarray(0, bytesRead).indexOf(LF);
+      const start = at + newline + 1;
+      return newline < 0 || start >= size ? null : { start, density: countLineFeeds(bytes, bytesRead) / bytesRead };
+    }),
+  );
+  const boundaries = samples.filter((sample) => sample !== null);
+  if (boundaries.length === 0) return null;
+  const starts = [from, ...boundaries.map((boundary) => boundary.start), size];
+  // A block is judged by the denser of the samples at its two ends (the first MiB's rows stand for the first block's start).
+  const densities = [reader.rowDensity(), ...boundaries.map((boundary) => boundary.density)];
+  const { row, format, channels } = reader.position();
+  const rows = [row];
+  for (let k = 0; k + 1 < starts.length; k++) {
+    const bytes = (starts[k + 1] as number) - (starts[k] as number);
+    const density = Math.max(densities[k] as number, densities[k + 1] ?? 0);
+    rows.push((rows[k] as number) + Math.min(Math.ceil(bytes * density * RESERVE_MARGIN) + RESERVE_EXTRA_ROWS, reader.rowsAtMost(bytes)));
+  }
+  const blocks = starts.length - 1;
+  if (blocks > 0xffff) throw new Error(`${blocks} blocks do not fit the claim word`);
+  const claims = new Int32Array(new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT)).fill(blocks << 16);
+  return { path, starts, rows, claims, format, channels };
+}
+
+/** Takes the next unclaimed block from one side, or null once the two sides have met. */
+function claimBlock(claims: Int32Array, side: "front" | "back"): number | null {
+  for (;;) {
+    const word = Atomics.load(claims, 0);
+    const front = word & 0xffff;
+    const back = word >>> 16;
+    if (front >= back) return null;
+    const next = side === "front" ? (front + 1) | (back << 16) : front | ((back - 1) << 16);
+    if (Atomics.compareExchange(claims, 0, word, next) === word) return side === "front" ? front : back - 1;
+  }
+}
+
+/**
+ * Reads the plan's blocks one at a time, each claimed from this side until the two sides meet; a rejection is
+ * returned in its block's tally, not thrown, so it can cross threads. The front stops at a block that overflows or
+ * is rejected, as nothing after it will be joined; the back goes on, since the blocks before such a block still are.
+ */
+export async function readClaimedBlocks(plan: CaptureBlockPlan, side: "front" | "back"): Promise<CaptureBlockTally[]> {
+  const handle = await open(plan.path, "r");
   try {
-    const reader = new CaptureReader({}, { range: request });
-    try {
-      await readChunks(handle, reader, request.start, request.end);
-      reader.flushLastLine();
-    } catch (error) {
-      if (error instanceof RowLimitReached) return reader.tally(null, true);
-      if (!(error instanceof CaptureError)) throw error;
-      return reader.tally({ problem: error.problem, line: error.line }, false);
+    const tallies: CaptureBlockTally[] = [];
+    // One pair for every block: a pair each would leave megabytes to the garbage collector per block.
+    const buffers = chunkBuffers();
+    let frontRow = plan.rows[0] as number;
+    for (let block = claimBlock(plan.claims, side); block !== null; block = claimBlock(plan.claims, side)) {
+      const row = side === "front" ? frontRow : (plan.rows[block] as number);
+      const reader = new CaptureReader({}, { range: { format: plan.format, channels: plan.channels, row, rowLimit: (plan.rows[block + 1] as number) - row } });
+      let error: CaptureBlockTally["error"] = null;
+      let full = false;
+      try {
+        await readChunks(handle, reader, plan.starts[block] as number, plan.starts[block + 1] as number, buffers);
+        reader.flushLastLine();
+      } catch (thrown) {
+        if (thrown instanceof RowLimitReached) full = true;
+        else if (thrown instanceof CaptureError) error = { problem: thrown.problem, line: thrown.line };
+        else throw thrown;
+      }
+      const tally = reader.tally(block, error, full);
+      tallies.push(tally);
+      if (side === "front") {
+        if (full || error !== null) break;
+        frontRow += tally.rows;
+      }
     }
-    return reader.tally(null, false);
+    return tallies;
   } finally {
     await handle.close();
   }
 }
 
-/** A range reached its row limit: not a problem with the file, so not a CaptureError. */
+/** A block reached the rows set aside for it: not a problem with the file, so not a CaptureError. */
 class RowLimitReached extends Error {}
 
 /** The most rows `bytes` of data can hold: a row takes at least a delimiter between columns, a character in each mapped one and a line feed. */
 function rowsAtMost(bytes: number, columnCount: number): number {
   return Math.floor(bytes / (columnCount + 1)) + 1;
-}
-
-async function countLines(handle: FileHandle, from: number, to: number): Promise<number> {
-  // Its own ArrayBuffer, so the word view below starts aligned.
-  const buffer = new Uint8Array(READ_CHUNK_BYTES);
-  let lines = 0;
-  for (let position = from; position < to; ) {
-    const { bytesRead } = await handle.read(buffer, 0, Math.min(buffer.length, to - position), position);
-    if (bytesRead === 0) break;
-    lines += countLineFeeds(buffer, bytesRead);
-    position += bytesRead;
-  }
-  return lines;
 }
 
 /** Line feeds four bytes at a time: a word holds one only when (x − 0x01010101) & ~x & 0x80808080 is set for x = word ^ 0x0a0a0a0a. */
@@ -399,10 +442,13 @@ class CaptureReader {
   private firstRow = 0;
   private firstTimeLine = 0;
   private readonly sharedRowsForBytes: number | null = null;
-  /** Reads a range of a file for readCaptureRange, into channels it was given. */
+  /** Reads a block of a file for readClaimedBlocks, into channels it was given. */
   private readonly readsRange: boolean = false;
 
-  constructor(options: CaptureReadOptions, shared?: { sharedRowsForBytes: number } | { range: Pick<CaptureRangeRequest, "format" | "channels" | "row" | "rowLimit"> }) {
+  constructor(
+    options: CaptureReadOptions,
+    shared?: { sharedRowsForBytes: number } | { range: { format: RowFormat; channels: SharedChannels; row: number; rowLimit: number } },
+  ) {
     this.options = options;
     if (shared === undefined) return;
     if ("sharedRowsForBytes" in shared) {
@@ -426,7 +472,7 @@ class CaptureReader {
     this.current = channels.current;
     this.voltage = channels.voltage;
     this.temperature = channels.temperature;
-    this.capacity = Math.min((channels.current ?? channels.voltage ?? channels.temperature)?.length ?? 0, row + (rowLimit ?? Infinity));
+    this.capacity = Math.min((channels.current ?? channels.voltage ?? channels.temperature)?.length ?? 0, row + rowLimit);
     this.rows = row;
     this.firstRow = row;
     this.readsRange = true;
@@ -443,8 +489,8 @@ class CaptureReader {
     return length;
   }
 
-  /** Where the rows read so far end, and their format: the start of a range for readCaptureRange. */
-  position(): Pick<CaptureRangeRequest, "row" | "format" | "channels"> {
+  /** Where the rows read so far end, and their format: where a plan's blocks start, and how to read them. */
+  position(): Pick<CaptureBlockPlan, "format" | "channels"> & { row: number } {
     return {
       row: this.rows,
       format: {
@@ -470,8 +516,9 @@ class CaptureReader {
     this.process(last, 0, last.length);
   }
 
-  tally(error: CaptureRangeTally["error"], full: boolean): CaptureRangeTally {
+  tally(block: number, error: CaptureBlockTally["error"], full: boolean): CaptureBlockTally {
     return {
+      block,
       row: this.firstRow,
       rows: this.rows - this.firstRow,
       lines: this.line,
@@ -490,48 +537,41 @@ class CaptureReader {
     return rowsAtMost(bytes, this.columnCount);
   }
 
-  /** Rows to set aside for `bytes` more of data: as many as the rows so far foretell, with a margin, but no more than can fit. */
-  rowsToReserve(bytes: number): number {
-    const foretold = this.rows > 0 && this.dataBytes > 0 ? Math.ceil(((bytes * this.rows) / this.dataBytes) * RESERVE_MARGIN) + 1024 : Infinity;
-    return Math.min(foretold, this.rowsAtMost(bytes));
-  }
-
-  /** Moves a range's stored rows to start at `row`. */
-  moveRange(range: CaptureRangeTally, row: number): CaptureRangeTally {
-    if (range.row !== row) {
-      for (const channel of [this.current, this.voltage, this.temperature]) channel?.copyWithin(row, range.row, range.row + range.rows);
-    }
-    return { ...range, row };
+  /** Rows per byte of data so far. */
+  rowDensity(): number {
+    return this.dataBytes > 0 ? this.rows / this.dataBytes : 0;
   }
 
   /**
-   * Takes in the ranges read after this reader's rows, in file order, as if it had read them itself: each range's
+   * Takes in the blocks read after this reader's rows, in file order, as if it had read them itself: each block's
    * rows move down to follow the rows before them, its line numbers are counted on from the lines before it, the
    * time checks run across every join, and the first rejection in file order is thrown.
    */
-  joinRanges(...ranges: CaptureRangeTally[]): void {
-    for (const range of ranges) {
-      this.moveRange(range, this.rows);
+  joinBlocks(...blocks: CaptureBlockTally[]): void {
+    for (const block of blocks) {
+      if (block.row !== this.rows) {
+        for (const channel of [this.current, this.voltage, this.temperature]) channel?.copyWithin(this.rows, block.row, block.row + block.rows);
+      }
       const lineOf = (line: number) => this.line + line;
-      if (range.rows > 0 && this.hasTime) {
-        if (this.rows === 0) this.firstTime = range.firstTime;
+      if (block.rows > 0 && this.hasTime) {
+        if (this.rows === 0) this.firstTime = block.firstTime;
         else {
-          const interval = range.firstTime - this.lastTime;
-          if (!(interval > 0)) throw timeNotIncreasing(range.firstTime, this.lastTime, lineOf(range.firstTimeLine));
+          const interval = block.firstTime - this.lastTime;
+          if (!(interval > 0)) throw timeNotIncreasing(block.firstTime, this.lastTime, lineOf(block.firstTimeLine));
           if (interval > this.largestInterval) {
             this.largestInterval = interval;
-            this.largestIntervalLine = lineOf(range.firstTimeLine);
+            this.largestIntervalLine = lineOf(block.firstTimeLine);
           }
         }
       }
-      if (range.error !== null) throw new CaptureError(range.error.problem, range.error.line === null ? null : lineOf(range.error.line));
-      if (range.largestInterval > this.largestInterval) {
-        this.largestInterval = range.largestInterval;
-        this.largestIntervalLine = lineOf(range.largestIntervalLine);
+      if (block.error !== null) throw new CaptureError(block.error.problem, block.error.line === null ? null : lineOf(block.error.line));
+      if (block.largestInterval > this.largestInterval) {
+        this.largestInterval = block.largestInterval;
+        this.largestIntervalLine = lineOf(block.largestIntervalLine);
       }
-      if (range.rows > 0) this.lastTime = range.lastTime;
-      this.rows += range.rows;
-      this.line = lineOf(range.lines);
+      if (block.rows > 0) this.lastTime = block.lastTime;
+      this.rows += block.rows;
+      this.line = lineOf(block.lines);
     }
   }
 

@@ -1,23 +1,23 @@
 // The helper thread's side (see helper-thread.ts): bundled on its own, so it imports only the bench modules it runs.
 
 import { parentPort, type MessagePort } from "node:worker_threads";
-import { readCaptureRange, type CaptureRangeRequest, type CaptureRangeTally } from "./capture-csv";
+import { readClaimedBlocks, type CaptureBlockPlan, type CaptureBlockTally } from "./capture-csv";
 import { peakMagnitude } from "./electrical";
 import { measureHarmonics, type HarmonicsInput } from "./harmonics";
 
 /** Work the main thread waits for synchronously: the answer comes on `port`, and `done` is set and notified. */
 export type HelperJob = { kind: "harmonics"; input: HarmonicsInput } | { kind: "peak"; signal: Float64Array };
 
-export type HelperRequest = { kind: "range"; id: number; request: CaptureRangeRequest } | { kind: "job"; job: HelperJob; port: MessagePort; done: Int32Array };
+export type HelperRequest = { kind: "blocks"; id: number; plan: CaptureBlockPlan } | { kind: "job"; job: HelperJob; port: MessagePort; done: Int32Array };
 
-export type HelperReply = { id: number; tally: CaptureRangeTally } | { id: number; error: string };
+export type HelperReply = { id: number; tallies: CaptureBlockTally[] } | { id: number; error: string };
 
 const messageOf = (error: unknown) => (error instanceof Error ? error.message : String(error));
 
 parentPort?.on("message", (request: HelperRequest) => {
-  if (request.kind === "range") {
-    readCaptureRange(request.request).then(
-      (tally) => parentPort?.postMessage({ id: request.id, tally } satisfies HelperReply),
+  if (request.kind === "blocks") {
+    readClaimedBlocks(request.plan, "back").then(
+      (tallies) => parentPort?.postMessage({ id: request.id, tallies } satisfies HelperReply),
       (error: unknown) => parentPort?.postMessage({ id: request.id, error: messageOf(error) } satisfies HelperReply),
     );
     return;

@@ -1,5 +1,5 @@
-// A second thread for the bench math on a two-core machine (the CLI and the benchmark start one): it reads the
-// second half of a large capture and measures the harmonics while the main thread does the rest. Node 20 cannot
+// A second thread for the bench math on a two-core machine (the CLI and the benchmark start one): it reads blocks
+// of a large capture beside the main thread and measures the harmonics while the main thread does the rest. Node 20 cannot
 // load TypeScript in a worker thread without a loader of its own (tsx's costs about 34 MB and 0.4 s a thread), so
 // the thread's code is bundled to plain JavaScript by esbuild (tsx's own compiler) as the helper starts.
 
@@ -7,7 +7,7 @@ import { fileURLToPath } from "node:url";
 import { MessageChannel, receiveMessageOnPort, Worker } from "node:worker_threads";
 import { build, stop } from "esbuild";
 import type { AnalysisHelper } from "./analysis";
-import type { CaptureRangeRequest, CaptureRangeTally } from "./capture-csv";
+import type { CaptureBlockPlan, CaptureBlockTally } from "./capture-csv";
 import type { HarmonicSpectrum, HarmonicsInput } from "./harmonics";
 import type { HelperJob, HelperReply, HelperRequest } from "./helper-thread-entry";
 
@@ -34,7 +34,7 @@ export async function startHelperThread(): Promise<HelperThread> {
   if (code === undefined) throw new Error("esbuild produced no code for the helper thread");
   const worker = new Worker(code, { eval: true, execArgv: [] });
 
-  const pending = new Map<number, { resolve: (tally: CaptureRangeTally) => void; reject: (error: Error) => void }>();
+  const pending = new Map<number, { resolve: (tallies: CaptureBlockTally[]) => void; reject: (error: Error) => void }>();
   // The helper keeps the process alive only while it owes an answer, so a finished CLI exits.
   const settle = () => {
     if (pending.size === 0) worker.unref();
@@ -50,7 +50,7 @@ export async function startHelperThread(): Promise<HelperThread> {
     pending.delete(reply.id);
     settle();
     if ("error" in reply) waiting.reject(new Error(`helper thread: ${reply.error}`));
-    else waiting.resolve(reply.tally);
+    else waiting.resolve(reply.tallies);
   });
   worker.on("error", failAll);
   worker.on("exit", (code) => failAll(new Error(`the helper thread stopped (exit code ${code})`)));
@@ -76,12 +76,12 @@ export async function startHelperThread(): Promise<HelperThread> {
   };
 
   return {
-    readRange(request: CaptureRangeRequest) {
+    readBlocks(plan: CaptureBlockPlan) {
       const id = nextId++;
-      return new Promise<CaptureRangeTally>((resolve, reject) => {
+      return new Promise<CaptureBlockTally[]>((resolve, reject) => {
         pending.set(id, { resolve, reject });
         worker.ref();
-        send({ kind: "range", id, request });
+        send({ kind: "blocks", id, plan });
       });
     },
     startHarmonics: (input: HarmonicsInput) => startJob<HarmonicSpectrum>({ kind: "harmonics", input }),

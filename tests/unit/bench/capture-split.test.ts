@@ -9,11 +9,11 @@ import { analyzeCapture } from "@/lib/bench/analysis";
 import {
   CaptureError,
   readCaptureFile,
-  readCaptureRange,
+  readClaimedBlocks,
   type Capture,
-  type CaptureRangeReader,
-  type CaptureRangeRequest,
-  type CaptureRangeTally,
+  type CaptureBlockPlan,
+  type CaptureBlocksReader,
+  type CaptureBlockTally,
 } from "@/lib/bench/capture-csv";
 import { startHelperThread, type HelperThread } from "@/lib/bench/helper-thread";
 
@@ -58,18 +58,21 @@ function write(name: string, text: string): string {
   return path;
 }
 
-/** Keeps the ranges asked of the helper and what it answered, so a test knows the file really was split, and where. */
-function counting(reader: CaptureRangeReader): { reader: CaptureRangeReader; requests: CaptureRangeRequest[]; tallies: CaptureRangeTally[] } {
-  const requests: CaptureRangeRequest[] = [];
-  const tallies: CaptureRangeTally[] = [];
+/** The helper's side read on this thread, taking turns with the front at each chunk. */
+const backOnThisThread: CaptureBlocksReader = (plan) => readClaimedBlocks(plan, "back");
+
+/** Keeps the plan given to the helper and the blocks it read, so a test knows the file really was split, and where. */
+function counting(reader: CaptureBlocksReader): { reader: CaptureBlocksReader; plans: CaptureBlockPlan[]; tallies: CaptureBlockTally[] } {
+  const plans: CaptureBlockPlan[] = [];
+  const tallies: CaptureBlockTally[] = [];
   return {
-    requests,
+    plans,
     tallies,
-    reader: async (request) => {
-      requests.push(request);
-      const tally = await reader(request);
-      tallies.push(tally);
-      return tally;
+    reader: async (plan) => {
+      plans.push(plan);
+      const read = await reader(plan);
+      tallies.push(...read);
+      return read;
     },
   };
 }
@@ -100,21 +103,24 @@ function expectSameCapture(split: Capture, whole: Capture): void {
   expect(Buffer.from(split.voltage!.buffer, split.voltage!.byteOffset, whole.sampleCount * 8).equals(Buffer.from(whole.voltage!.buffer, whole.voltage!.byteOffset, whole.sampleCount * 8))).toBe(true);
 }
 
-describe("reading a large capture in two ranges", { timeout: 60_000 }, () => {
-  it("gives the samples of one pass, with the helper thread reading the second range", async () => {
+describe("reading a large capture in blocks on two threads", { timeout: 60_000 }, () => {
+  it("gives the samples of one pass, with the helper thread reading blocks from the back", async () => {
     const path = write("plain.csv", captureText());
-    const { reader, tallies } = counting(helper.readRange);
+    const { reader, plans, tallies } = counting(helper.readBlocks);
     const split = await readCaptureFile(path, {}, reader);
-    expect(tallies).toHaveLength(1);
-    expect(tallies[0]!.rows).toBeGreaterThan(ROWS / 3);
+    const blocks = plans[0]!.starts.length - 1;
+    expect(blocks).toBeGreaterThan(1);
+    expect(tallies.length).toBeGreaterThan(0);
+    expect(tallies.map((tally) => tally.block)).toEqual(Array.from({ length: tallies.length }, (_, k) => blocks - 1 - k));
+    expect(tallies.every((tally) => tally.rows > 0 && !tally.full && tally.error === null)).toBe(true);
     expect(split.current!.buffer).toBeInstanceOf(SharedArrayBuffer);
     expectSameCapture(split, await readCaptureFile(path, {}));
   });
 
-  it("closes the gap left by comment and blank lines in the first range, and reads a last line without a line feed", async () => {
+  it("closes the gaps left by comment and blank lines and by rows set aside but not used, and reads a last line without a line feed", async () => {
     const text = captureText({ edit: (row, line) => (row > 100_000 && row % 1000 === 0 ? `# marker ${row}\n\n${line}` : line) });
     const path = write("comments.csv", text.trimEnd());
-    const split = await readCaptureFile(path, {}, readCaptureRange);
+    const split = await readCaptureFile(path, {}, backOnThisThread);
     expect(split.sampleCount).toBe(ROWS);
     expectSameCapture(split, await readCaptureFile(path, {}));
   });
@@ -123,30 +129,30 @@ describe("reading a large capture in two ranges", { timeout: 60_000 }, () => {
     const path = write("semicolon.csv", `${captureText({ delimiter: ";", decimal: ",", newline: "\r\n" })}\r\n`);
     const whole = await readCaptureFile(path, {});
     expect(whole.delimiter).toBe(";");
-    expectSameCapture(await readCaptureFile(path, {}, helper.readRange), whole);
+    expectSameCapture(await readCaptureFile(path, {}, helper.readBlocks), whole);
   });
 
-  it("reports the first rejection in file order with its line, wherever the ranges meet", async () => {
+  it("reports the first rejection in file order with its line, whichever thread read it", async () => {
     const cases: [string, (row: number, text: string) => string][] = [
-      ["text in the second range", (row, text) => (row === 350_000 ? text.replace(/,[^,]*$/, ",n/a") : text)],
-      ["a ragged row in the first range and text in the second", (row, text) => (row === 150_000 ? `${text},1` : row === 350_000 ? `${text}x` : text)],
-      ["time going back in the second range", (row, text) => (row === 400_000 ? text.replace(/^[^,]*/, "0.1") : text)],
+      ["text in the last block", (row, text) => (row === 350_000 ? text.replace(/,[^,]*$/, ",n/a") : text)],
+      ["a ragged row in an early block and text in the last", (row, text) => (row === 150_000 ? `${text},1` : row === 350_000 ? `${text}x` : text)],
+      ["time going back in the last block", (row, text) => (row === 400_000 ? text.replace(/^[^,]*/, "0.1") : text)],
     ];
     for (const [name, edit] of cases) {
       const path = write("bad.csv", captureText({ edit }));
       const whole = await rejectionOf(readCaptureFile(path, {}));
-      const split = await rejectionOf(readCaptureFile(path, {}, helper.readRange));
+      const split = await rejectionOf(readCaptureFile(path, {}, helper.readBlocks));
       expect(split.message, name).toBe(whole.message);
       expect(split.line, name).toBe(whole.line);
     }
   });
 
-  it("checks time across the join: a repeated time at the helper's first row, and a gap there", async () => {
+  it("checks time across a join: a repeated time at a block's first row, and a gap there", async () => {
     const plain = captureText();
-    const { reader, requests } = counting(readCaptureRange);
+    const { reader, plans } = counting(backOnThisThread);
     await readCaptureFile(write("probe.csv", plain), {}, reader);
-    // The helper's first row, 0-based among the data rows.
-    const joinRow = rowsBefore(plain, requests[0]!.start);
+    // The second block's first row, 0-based among the data rows.
+    const joinRow = rowsBefore(plain, plans[0]!.starts[1]!);
     for (const edit of [
       (row: number, text: string) => (row === joinRow ? text.replace(/^[^,]*/, ((row - 1) / RATE).toFixed(5)) : text),
       (row: number, text: string) => (row >= joinRow ? text.replace(/^[^,]*/, ((row + 50) / RATE).toFixed(5)) : text),
@@ -154,22 +160,24 @@ describe("reading a large capture in two ranges", { timeout: 60_000 }, () => {
       const path = write("join.csv", captureText({ edit }));
       const whole = await rejectionOf(readCaptureFile(path, {}));
       expect(whole.line).toBe(joinRow + 4);
-      const split = await rejectionOf(readCaptureFile(path, {}, readCaptureRange));
+      const split = await rejectionOf(readCaptureFile(path, {}, backOnThisThread));
       expect(split.message).toBe(whole.message);
       expect(split.line).toBe(whole.line);
     }
   });
 
-  it("reads this thread's share again when it holds more rows than its first MiB foretold, the helper's rows moved out of the way", async () => {
-    // Padded numbers in the first 60 000 rows make the first MiB's rows long, so the rows set aside for this thread's
-    // share run out before its end.
-    const text = captureText({ edit: (row, line) => (row < 60_000 ? line.split(",").map((field) => `   ${field}`).join(",") : line) });
-    const { reader, requests, tallies } = counting(helper.readRange);
-    const split = await readCaptureFile(write("padded.csv", text), {}, reader);
-    const firstRow = rowsBefore(text, requests[0]!.start);
-    expect(requests[0]!.row).toBeLessThan(firstRow);
-    expect(tallies[0]!.rows).toBe(ROWS - firstRow);
-    expectSameCapture(split, await readCaptureFile(write("padded.csv", text), {}));
+  it("reads the file again from a block that holds more rows than were set aside for it, in one pass", async () => {
+    // Padded numbers make every row long but those of a stretch inside the second block, which the line densities
+    // sampled at the blocks' ends cannot see.
+    const text = captureText({ edit: (row, line) => (row >= 180_000 && row < 260_000 ? line : line.split(",").map((field) => `   ${field}`).join(",")) });
+    const path = write("dense.csv", text);
+    const { reader, plans } = counting(helper.readBlocks);
+    const split = await readCaptureFile(path, {}, reader);
+    // Some block ends past the rows set aside up to its end, so whichever thread read it ran out of room.
+    const { starts, rows } = plans[0]!;
+    const overflowing = starts.slice(1).some((end, k) => rowsBefore(text, end) > rows[k + 1]!);
+    expect(overflowing).toBe(true);
+    expectSameCapture(split, await readCaptureFile(path, {}));
   });
 
   it("gives the CLI's analysis object unchanged when the helper reads and measures the harmonics", async () => {
