@@ -121,11 +121,53 @@ export class SectionCascade {
     sections.forEach((q, i) => this.coefficients.set([q.b0, q.b1, q.b2, q.a1, q.a2], 5 * i));
   }
 
-  /** Filters values[0, length) in place; the state carries over to the next block. */
+  /**
+   * Filters values[0, length) in place; the state carries over to the next block. Sections go two at a time, the
+   * second one sample behind the first: each section's recursion waits on its own previous output, so two
+   * independent ones keep the CPU busy where one leaves it waiting. Every section does the same arithmetic in the
+   * same order as alone, so the output is the same to the last bit.
+   */
   processBlock(values: Float64Array, length: number): void {
     const c = this.coefficients;
     const z = this.state;
-    for (let i = 0; i < this.count; i++) {
+    let i = 0;
+    for (; i + 1 < this.count && length > 0; i += 2) {
+      const b0 = c[5 * i]!;
+      const b1 = c[5 * i + 1]!;
+      const b2 = c[5 * i + 2]!;
+      const a1 = c[5 * i + 3]!;
+      const a2 = c[5 * i + 4]!;
+      const d0 = c[5 * i + 5]!;
+      const d1 = c[5 * i + 6]!;
+      const d2 = c[5 * i + 7]!;
+      const e1 = c[5 * i + 8]!;
+      const e2 = c[5 * i + 9]!;
+      let z0 = z[2 * i]!;
+      let z1 = z[2 * i + 1]!;
+      let w0 = z[2 * i + 2]!;
+      let w1 = z[2 * i + 3]!;
+      let x = values[0]!;
+      let y = b0 * x + z0;
+      z0 = b1 * x - a1 * y + z1;
+      z1 = b2 * x - a2 * y;
+      for (let n = 1; n < length; n++) {
+        // The second section takes the first's output for sample n − 1 while the first takes sample n.
+        const v = d0 * y + w0;
+        w0 = d1 * y - e1 * v + w1;
+        w1 = d2 * y - e2 * v;
+        values[n - 1] = v;
+        x = values[n]!;
+        y = b0 * x + z0;
+        z0 = b1 * x - a1 * y + z1;
+        z1 = b2 * x - a2 * y;
+      }
+      const v = d0 * y + w0;
+      w0 = d1 * y - e1 * v + w1;
+      w1 = d2 * y - e2 * v;
+      values[length - 1] = v;
+      z.set([z0, z1, w0, w1], 2 * i);
+    }
+    for (; i < this.count; i++) {
       const b0 = c[5 * i]!;
       const b1 = c[5 * i + 1]!;
       const b2 = c[5 * i + 2]!;

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { flickermeterPst, instantaneousFlickerSensation, plt } from "@/lib/bench/flicker/flickermeter";
+import { butterworthLowPass, firstOrderHighPass, SectionCascade, weightingFilter } from "@/lib/bench/flicker/filters";
+import { flickermeterPst, instantaneousFlickerSensation, plt, pstFromPinst } from "@/lib/bench/flicker/flickermeter";
 import { modulatedVoltage, rectangularHzForChangesPerMinute } from "./test-signals";
 
 // 4 kS/s keeps a 620 s record at 2.5 M samples; the meter's internal rate is 2 kHz either way.
@@ -116,5 +117,60 @@ describe("plt", () => {
 
   it("needs exactly twelve values", () => {
     expect(() => plt([1, 1, 1])).toThrow(RangeError);
+  });
+});
+
+describe("the flickermeter's filter cascade", () => {
+  it("gives, two sections at a time and block by block, exactly what each section gives alone over the whole signal", () => {
+    const sections = [firstOrderHighPass(0.05, 2000), ...butterworthLowPass(6, 35, 2000), ...weightingFilter(230, 2000)];
+    expect(sections.length % 2).toBe(0);
+    // An odd number of sections takes the one-at-a-time path for the last.
+    for (const cascadeSections of [sections, sections.slice(1)]) {
+      let seed = 99;
+      const signal = Float64Array.from({ length: 10_007 }, () => {
+        seed = (seed * 1103515245 + 12345) % 2147483648;
+        return seed / 2147483648 - 0.5;
+      });
+      const alone = signal.slice();
+      for (const section of cascadeSections) new SectionCascade([section]).processBlock(alone, alone.length);
+      const together = signal.slice();
+      const cascade = new SectionCascade(cascadeSections);
+      // Blocks of uneven lengths, one of a single sample, so the state must carry over between them.
+      for (const [from, to] of [[0, 4096], [4096, 4097], [4097, 9000], [9000, 10_007]] as const) cascade.processBlock(together.subarray(from, to), to - from);
+      expect(Array.from(together)).toEqual(Array.from(alone));
+    }
+  });
+});
+
+describe("Pst from Pinst samples (IEC 61000-4-15 block 5 with exact percentiles)", () => {
+  /** The definition, by a full sort: the level exceeded for p % of the time, interpolated between two ranks. */
+  function pstBySorting(pinst: Float64Array): number {
+    const sorted = pinst.slice().sort();
+    const p = (percent: number) => {
+      const position = (1 - percent / 100) * (sorted.length - 1);
+      const below = Math.floor(position);
+      const upper = sorted[Math.min(below + 1, sorted.length - 1)]!;
+      return sorted[below]! + (upper - sorted[below]!) * (position - below);
+    };
+    const mean = (...values: number[]) => values.reduce((a, b) => a + b, 0) / values.length;
+    return Math.sqrt(
+      0.0314 * p(0.1) + 0.0525 * mean(p(0.7), p(1), p(1.5)) + 0.0657 * mean(p(2.2), p(3), p(4)) + 0.28 * mean(p(6), p(8), p(10), p(13), p(17)) + 0.08 * mean(p(30), p(50), p(80)),
+    );
+  }
+
+  it("takes the same percentiles as a full sort, whatever the spread of the samples", () => {
+    let seed = 5;
+    const random = () => {
+      seed = (seed * 1103515245 + 12345) % 2147483648;
+      return seed / 2147483648;
+    };
+    const cases: [string, Float64Array][] = [
+      ["spread over decades", Float64Array.from({ length: 120_000 }, () => Math.exp(12 * random() - 8))],
+      // Nearly all equal: the partitions meet runs of equal values everywhere.
+      ["a steady supply: values a few units in the last place apart", Float64Array.from({ length: 60_000 }, () => 0.5 + Math.floor(random() * 64) * Number.EPSILON)],
+      ["runs of equal values", Float64Array.from({ length: 100_000 }, (_, k) => Math.floor(k / 7_000) / 3)],
+      ["few samples", Float64Array.from({ length: 1_000 }, random)],
+    ];
+    for (const [name, pinst] of cases) expect(pstFromPinst(pinst.slice()), name).toBe(pstBySorting(pinst));
   });
 });
