@@ -11,6 +11,7 @@ import {
   peakMagnitude,
   powerFigures,
   voltageFigures,
+  type CrossingScan,
   type CurrentFigures,
 } from "./electrical";
 import { estimateFlicker, type FlickerResult } from "./flicker";
@@ -140,14 +141,16 @@ export type StageObserver = (stage: string, milliseconds: number) => void;
 
 /**
  * A second thread (lib/bench/helper-thread.ts) for callers that start one: it reads blocks of a large capture file
- * beside this thread, and measures the peaks and the harmonics while this thread does the rest. The figures are the
- * same without it.
+ * beside this thread, looks for the later half's zero crossings, and measures the peaks and the harmonics while this
+ * thread does the rest. The figures are the same without it.
  */
 export interface AnalysisHelper {
   readBlocks: CaptureBlocksReader;
   /** Starts measureHarmonics or peakMagnitude on the helper; the function returned waits for the result. Signals must be on shared memory. */
   startHarmonics(input: HarmonicsInput): () => HarmonicSpectrum;
   startPeak(signal: Float64Array): () => number;
+  /** Starts findZeroCrossings on the part of a signal after `after`. */
+  startCrossings: CrossingScan;
 }
 
 function nominalFrequencyFor(options: ParsedOptions): number {
@@ -204,7 +207,14 @@ export function analyzeSamples(
     stageStart = now;
   };
 
-  const mains = measureMainsFrequency({ current, voltage, sampleRateHz, nominalHz });
+  // On a helper thread (signals on shared memory) the peaks are measured while this one sets the crossings' band,
+  // the later half's crossings are found while this one finds the earlier half's, and the harmonics are measured
+  // while this one works through the half-cycles and the flicker.
+  const onHelper = helper !== undefined && current.buffer instanceof SharedArrayBuffer ? helper : null;
+  const peakOf = (signal: Float64Array) => (onHelper ? onHelper.startPeak(signal) : () => peakMagnitude(signal));
+  const currentPeak = peakOf(current);
+  const voltagePeak = voltage === null ? null : peakOf(voltage);
+  const mains = measureMainsFrequency({ current, voltage, sampleRateHz, nominalHz, scanAfter: onHelper?.startCrossings });
   const { frequencyHz } = mains;
   const windowCycles = harmonicWindowCycles(frequencyHz);
   assertEnoughCycles(current.length, sampleRateHz, frequencyHz, windowCycles);
@@ -218,12 +228,6 @@ export function analyzeSamples(
 
   const boundaries = halfCycleBoundaries(mains.crossings, sampleRateHz, frequencyHz, current.length);
   const harmonicsInput = { current, sampleRateHz, frequencyHz, startSample: boundaries[0] ?? 0 };
-  // On a helper thread the peaks and the harmonics are measured while this one works through the half-cycles and
-  // the flicker; the peaks go first, as this thread needs them first.
-  const onHelper = helper !== undefined && current.buffer instanceof SharedArrayBuffer ? helper : null;
-  const peakOf = (signal: Float64Array) => (onHelper ? onHelper.startPeak(signal) : () => peakMagnitude(signal));
-  const currentPeak = peakOf(current);
-  const voltagePeak = voltage === null ? null : peakOf(voltage);
   const harmonicSpectrum = onHelper ? onHelper.startHarmonics(harmonicsInput) : () => measureHarmonics(harmonicsInput);
   const table = tabulateHalfCycles(current, voltage, boundaries);
   const record = sumHalfCycles(table, 0, table.count);

@@ -55,16 +55,22 @@ export interface ZeroCrossings {
  * half-cycle) makes none; but after resting in the band for `restSamples` it
  * makes one on leaving, whichever side it left last, so a current fed through
  * a diode (pulses of one polarity) still marks each cycle.
+ *
+ * `after` and `end` scan part of the signal: the crossings among samples
+ * (after, end), after being a sample outside the band (see firstOutside) or
+ * −1 for the start. A sample outside the band fixes everything the scan
+ * carries, so the parts' crossings, end to end, are those of the whole.
  */
-export function findZeroCrossings(signal: Float64Array, threshold: number, restSamples = Infinity): ZeroCrossings {
+export function findZeroCrossings(signal: Float64Array, threshold: number, restSamples = Infinity, after = -1, end = signal.length): ZeroCrossings {
   const positions: number[] = [];
   const directions: number[] = [];
   if (!(threshold > 0)) return { positions, directions };
-  let state = 0;
+  const resumed = after >= 0;
+  let previous = signal[resumed ? after : 0] ?? 0;
+  let state = resumed ? Math.sign(previous) : 0;
   let lastSignChange = -1;
-  let lastOutside = -1;
-  let previous = signal[0] ?? 0;
-  for (let k = 1; k < signal.length; k++) {
+  let lastOutside = after;
+  for (let k = resumed ? after + 1 : 1; k < end; k++) {
     const value = signal[k] as number;
     // Beyond the band on the side already entered, as the sample before was: no sign change and no
     // crossing, so most samples of a sine skip the bookkeeping below.
@@ -87,6 +93,25 @@ export function findZeroCrossings(signal: Float64Array, threshold: number, restS
     previous = value;
   }
   return { positions, directions };
+}
+
+/** The first sample from `from` on outside the ±threshold band, where a scan for crossings can start afresh; null if none. */
+export function firstOutside(signal: Float64Array, threshold: number, from: number): number | null {
+  for (let k = from; k < signal.length; k++) if (Math.abs(signal[k] as number) > threshold) return k;
+  return null;
+}
+
+/** Scans findZeroCrossings's part after `after` to the end, perhaps on another thread; the function returned waits for the crossings. */
+export type CrossingScan = (signal: Float64Array, threshold: number, restSamples: number, after: number) => () => ZeroCrossings;
+
+/** findZeroCrossings over the whole signal, its second half scanned by `scanAfter` meanwhile if given: the same crossings. */
+function zeroCrossingsInTwo(signal: Float64Array, threshold: number, restSamples: number, scanAfter?: CrossingScan): ZeroCrossings {
+  const split = scanAfter !== undefined && threshold > 0 ? firstOutside(signal, threshold, signal.length >> 1) : null;
+  if (scanAfter === undefined || split === null) return findZeroCrossings(signal, threshold, restSamples);
+  const later = scanAfter(signal, threshold, restSamples, split);
+  const earlier = findZeroCrossings(signal, threshold, restSamples, -1, split + 1);
+  const { positions, directions } = later();
+  return { positions: earlier.positions.concat(positions), directions: earlier.directions.concat(directions) };
 }
 
 function interpolateZero(signal: Float64Array, after: number): number {
@@ -154,6 +179,8 @@ export function measureMainsFrequency(input: {
   voltage: Float64Array | null;
   sampleRateHz: number;
   nominalHz: number;
+  /** Another thread's scan, to share the search for crossings with. */
+  scanAfter?: CrossingScan;
 }): MainsFrequency {
   const { sampleRateHz } = input;
   const candidates: { signal: Float64Array | null; source: "voltage" | "current" }[] = [
@@ -164,7 +191,7 @@ export function measureMainsFrequency(input: {
     if (signal === null) continue;
     // A quarter of a half-cycle at rest marks a blocked stretch rather than a passage through zero.
     const restSamples = sampleRateHz / (8 * input.nominalHz);
-    const crossings = findZeroCrossings(signal, CROSSING_HYSTERESIS * robustPeak(signal), restSamples);
+    const crossings = zeroCrossingsInTwo(signal, CROSSING_HYSTERESIS * robustPeak(signal), restSamples, input.scanAfter);
     const frequencyHz = frequencyFromCrossings(crossings, sampleRateHz);
     if (frequencyHz !== null) return { frequencyHz, source, crossings };
   }

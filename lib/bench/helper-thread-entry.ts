@@ -2,17 +2,26 @@
 
 import { parentPort, type MessagePort } from "node:worker_threads";
 import { readClaimedBlocks, type CaptureBlockPlan, type CaptureBlockTally } from "./capture-csv";
-import { peakMagnitude } from "./electrical";
+import { findZeroCrossings, peakMagnitude } from "./electrical";
 import { measureHarmonics, type HarmonicsInput } from "./harmonics";
 
 /** Work the main thread waits for synchronously: the answer comes on `port`, and `done` is set and notified. */
-export type HelperJob = { kind: "harmonics"; input: HarmonicsInput } | { kind: "peak"; signal: Float64Array };
+export type HelperJob =
+  | { kind: "harmonics"; input: HarmonicsInput }
+  | { kind: "peak"; signal: Float64Array }
+  | { kind: "crossings"; signal: Float64Array; threshold: number; restSamples: number; after: number };
 
 export type HelperRequest = { kind: "blocks"; id: number; plan: CaptureBlockPlan } | { kind: "job"; job: HelperJob; port: MessagePort; done: Int32Array };
 
 export type HelperReply = { id: number; tallies: CaptureBlockTally[] } | { id: number; error: string };
 
 const messageOf = (error: unknown) => (error instanceof Error ? error.message : String(error));
+
+function answer(job: HelperJob) {
+  if (job.kind === "harmonics") return measureHarmonics(job.input);
+  if (job.kind === "peak") return peakMagnitude(job.signal);
+  return findZeroCrossings(job.signal, job.threshold, job.restSamples, job.after);
+}
 
 parentPort?.on("message", (request: HelperRequest) => {
   if (request.kind === "blocks") {
@@ -24,7 +33,7 @@ parentPort?.on("message", (request: HelperRequest) => {
   }
   const { job } = request;
   try {
-    request.port.postMessage({ value: job.kind === "harmonics" ? measureHarmonics(job.input) : peakMagnitude(job.signal) });
+    request.port.postMessage({ value: answer(job) });
   } catch (error) {
     request.port.postMessage({ error: messageOf(error) });
   }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { analyzeSamples, type AnalysisOptions } from "@/lib/bench/analysis";
-import { findZeroCrossings, frequencyFromCrossings, halfCycleBoundaries, measureMainsFrequency } from "@/lib/bench/electrical";
+import { findZeroCrossings, firstOutside, frequencyFromCrossings, halfCycleBoundaries, measureMainsFrequency } from "@/lib/bench/electrical";
 import { addNoise, burstFire, harmonicCurrent, mainsVoltage, switchedResistor, type Mains } from "./waveforms";
 
 function analyse(mains: Mains, current: Float64Array, voltage: Float64Array | null, options: AnalysisOptions = {}) {
@@ -83,6 +83,43 @@ describe("mains frequency", () => {
     // Rising crossings at 0, 200, 400 samples, then 20 cycles off, then 4400, 4600.
     const crossings = { positions: [0, 200, 400, 4400, 4600], directions: [1, 1, 1, 1, 1] };
     expect(frequencyFromCrossings(crossings, 10_000)).toBeCloseTo(50, 9);
+  });
+
+  it("finds the same crossings in two parts, split after any sample outside the band, as in one scan", () => {
+    const mains = { frequencyHz: 49.9, sampleRateHz: 10_000, seconds: 2 };
+    const voltage = addNoise(mainsVoltage(mains, 230), 20);
+    // A burst-fired current rests at zero between bursts, so the scan's rest rule comes into play.
+    const current = addNoise(switchedResistor(mains, voltage, 52.9, burstFire(3, 2)), 0.2);
+    for (const [signal, threshold] of [[voltage, 32.5], [current, 0.6]] as const) {
+      const whole = findZeroCrossings(signal, threshold, 25);
+      expect(whole.positions.length).toBeGreaterThan(100);
+      for (let from = 101; from < signal.length; from += 1_999) {
+        const split = firstOutside(signal, threshold, from)!;
+        const earlier = findZeroCrossings(signal, threshold, 25, -1, split + 1);
+        const later = findZeroCrossings(signal, threshold, 25, split);
+        expect([...earlier.positions, ...later.positions]).toEqual(whole.positions);
+        expect([...earlier.directions, ...later.directions]).toEqual(whole.directions);
+      }
+    }
+  });
+
+  it("measures the same frequency from the same crossings with the later half scanned apart", () => {
+    const mains = { frequencyHz: 50.03, sampleRateHz: 10_000, seconds: 3 };
+    const voltage = addNoise(mainsVoltage(mains, 230), 5);
+    const current = switchedResistor(mains, voltage, 52.9, burstFire(2, 3));
+    const scans: number[] = [];
+    const scanAfter = (signal: Float64Array, threshold: number, restSamples: number, after: number) => {
+      scans.push(after);
+      const found = findZeroCrossings(signal, threshold, restSamples, after);
+      return () => found;
+    };
+    for (const signals of [{ current, voltage }, { current, voltage: null }]) {
+      const alone = measureMainsFrequency({ ...signals, sampleRateHz: 10_000, nominalHz: 50 });
+      const shared = measureMainsFrequency({ ...signals, sampleRateHz: 10_000, nominalHz: 50, scanAfter });
+      expect(shared).toEqual(alone);
+    }
+    expect(scans.length).toBe(2);
+    expect(scans.every((after) => after >= voltage.length / 2)).toBe(true);
   });
 
   it("makes no crossings from noise inside the hysteresis band", () => {
