@@ -100,7 +100,7 @@ const READ_CHUNK_BYTES = 1 << 20;
 export type CaptureBlocksReader = (plan: CaptureBlockPlan) => Promise<CaptureBlockTally[]>;
 
 /**
- * The rows after a large file's first MiB, cut at line starts into blocks that two threads claim one at a time,
+ * The rows after a large file's first read, cut at line starts into blocks that two threads claim one at a time,
  * this thread from the front and the helper from the back, so both stay busy until they meet whatever the speed
  * of each. The front stores its rows straight after the rows before them; a block read from the back is stored
  * at `rows[k]`, set aside from the line density sampled around it, as the rows before it are not known until
@@ -158,6 +158,8 @@ export interface SharedChannels {
 const SPLIT_MIN_BYTES = 8 << 20;
 /** Small enough that the thread done first waits little for the other, large enough that a block's start-up is lost in it. */
 const BLOCK_BYTES = 4 << 20;
+/** Read first, on this thread alone: enough for the header and some rows, no more, as the other thread waits meanwhile. */
+const FIRST_READ_BYTES = 256 << 10;
 /** Bytes read at each block boundary, to find a line start and the density of lines there. */
 const SAMPLE_BYTES = 64 << 10;
 /** Rows set aside for a block beyond what the density around it foretells, so that a block rarely overflows. */
@@ -183,11 +185,14 @@ export async function readCaptureFile(path: string, options: CaptureReadOptions 
     // Where the reading in one pass starts: after the header and first rows when the file could not be split.
     let from = 0;
     if (split) {
-      const first = Buffer.allocUnsafe(READ_CHUNK_BYTES);
-      const { bytesRead } = await handle.read(first, 0, READ_CHUNK_BYTES, 0);
+      // The boundaries are sampled while the header and the first rows are read.
+      const sampling = sampleBoundaries(handle, size);
+      const first = Buffer.allocUnsafe(FIRST_READ_BYTES);
+      const { bytesRead } = await handle.read(first, 0, FIRST_READ_BYTES, 0);
       reader.push(first.subarray(0, bytesRead));
       from = bytesRead - reader.dropCarry();
-      const plan = reader.inRows() ? await planBlocks(handle, path, reader, from, size) : null;
+      const boundaries = await sampling;
+      const plan = reader.inRows() && boundaries.length > 0 ? planBlocks(path, reader, from, size, boundaries) : null;
       if (plan !== null) {
         const [own, helper] = await Promise.allSettled([readClaimedBlocks(plan, "front"), readBlocks(plan)]);
         if (own.status === "rejected") throw own.reason;
@@ -228,9 +233,9 @@ async function readChunks(handle: FileHandle, reader: CaptureReader, from: numbe
   }
 }
 
-/** Cuts the rows from `from` into blocks at line starts and sets rows aside for each; null if there is only one. */
-async function planBlocks(handle: FileHandle, path: string, reader: CaptureReader, from: number, size: number): Promise<CaptureBlockPlan | null> {
-  const nominal = Array.from({ length: Math.ceil((size - from) / BLOCK_BYTES) - 1 }, (_, k) => from + (k + 1) * BLOCK_BYTES);
+/** Where the blocks after the first read start (at line starts about BLOCK_BYTES apart), with the density of lines there. */
+async function sampleBoundaries(handle: FileHandle, size: number): Promise<{ start: number; density: number }[]> {
+  const nominal = Array.from({ length: Math.max(0, Math.ceil((size - FIRST_READ_BYTES) / BLOCK_BYTES) - 1) }, (_, k) => FIRST_READ_BYTES + (k + 1) * BLOCK_BYTES);
   const samples = await Promise.all(
     nominal.map(async (at) => {
       // Its own ArrayBuffer, so countLineFeeds's word view starts aligned.
@@ -241,10 +246,13 @@ async function planBlocks(handle: FileHandle, path: string, reader: CaptureReade
       return newline < 0 || start >= size ? null : { start, density: countLineFeeds(bytes, bytesRead) / bytesRead };
     }),
   );
-  const boundaries = samples.filter((sample) => sample !== null);
-  if (boundaries.length === 0) return null;
+  return samples.filter((sample) => sample !== null);
+}
+
+/** Cuts the rows from `from` into blocks at the sampled line starts and sets rows aside for each. */
+function planBlocks(path: string, reader: CaptureReader, from: number, size: number, boundaries: { start: number; density: number }[]): CaptureBlockPlan {
   const starts = [from, ...boundaries.map((boundary) => boundary.start), size];
-  // A block is judged by the denser of the samples at its two ends (the first MiB's rows stand for the first block's start).
+  // A block is judged by the denser of the samples at its two ends (the first rows stand for the first block's start).
   const densities = [reader.rowDensity(), ...boundaries.map((boundary) => boundary.density)];
   const { row, format, channels } = reader.position();
   const rows = [row];
