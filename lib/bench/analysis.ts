@@ -25,7 +25,17 @@ import {
   type EstimatedPower,
   type Firing,
 } from "./half-cycles";
-import { assessHarmonics, harmonicWindowCycles, measureHarmonics, type HarmonicSpectrum, type HarmonicsInput, type HarmonicsReport } from "./harmonics";
+import {
+  assessHarmonics,
+  harmonicSpectrum,
+  harmonicWindowCycles,
+  harmonicWindows,
+  measureHarmonics,
+  measureHarmonicWindows,
+  type HarmonicsInput,
+  type HarmonicsReport,
+  type HarmonicWindows,
+} from "./harmonics";
 import { parseAccuracySpec } from "./uncertainty";
 import { judgePowerInput, type PowerInputVerdict } from "./verdict";
 
@@ -146,8 +156,11 @@ export type StageObserver = (stage: string, milliseconds: number) => void;
  */
 export interface AnalysisHelper {
   readBlocks: CaptureBlocksReader;
-  /** Starts measureHarmonics or peakMagnitude on the helper; the function returned waits for the result. Signals must be on shared memory. */
-  startHarmonics(input: HarmonicsInput): () => HarmonicSpectrum;
+  /**
+   * Starts measureHarmonicWindows or peakMagnitude on the helper; the function returned waits for it to be done.
+   * Signals and windows must be on shared memory.
+   */
+  startHarmonicWindows(input: HarmonicsInput, windows: HarmonicWindows): () => void;
   startPeak(signal: Float64Array): () => number;
   /** Starts findZeroCrossings on the part of a signal after `after`. */
   startCrossings: CrossingScan;
@@ -209,7 +222,7 @@ export function analyzeSamples(
 
   // On a helper thread (signals on shared memory) the peaks are measured while this one sets the crossings' band,
   // the later half's crossings are found while this one finds the earlier half's, and the harmonics are measured
-  // while this one works through the half-cycles and the flicker.
+  // while this one works through the half-cycles and the flicker, after which it takes the windows still left.
   const onHelper = helper !== undefined && current.buffer instanceof SharedArrayBuffer ? helper : null;
   const peakOf = (signal: Float64Array) => (onHelper ? onHelper.startPeak(signal) : () => peakMagnitude(signal));
   const currentPeak = peakOf(current);
@@ -228,7 +241,8 @@ export function analyzeSamples(
 
   const boundaries = halfCycleBoundaries(mains.crossings, sampleRateHz, frequencyHz, current.length);
   const harmonicsInput = { current, sampleRateHz, frequencyHz, startSample: boundaries[0] ?? 0 };
-  const harmonicSpectrum = onHelper ? onHelper.startHarmonics(harmonicsInput) : () => measureHarmonics(harmonicsInput);
+  const sharedWindows = onHelper ? harmonicWindows(harmonicsInput, true) : null;
+  const helperWindows = onHelper && sharedWindows ? onHelper.startHarmonicWindows(harmonicsInput, sharedWindows) : null;
   const table = tabulateHalfCycles(current, voltage, boundaries);
   const record = sumHalfCycles(table, 0, table.count);
   const conduction = classifyConduction(table, sampleRateHz);
@@ -290,7 +304,7 @@ export function analyzeSamples(
   stage("flicker");
 
   const harmonics = assessHarmonics({
-    spectrum: harmonicSpectrum(),
+    spectrum: sharedWindows && helperWindows ? sharedSpectrum(harmonicsInput, sharedWindows, helperWindows) : measureHarmonics(harmonicsInput),
     harmonicClass: parsed.harmonicClass,
     nominalVoltage,
     powerW: parsed.rating?.ratedPowerW ?? powerWhileConducting,
@@ -377,6 +391,13 @@ export function analyzeSamples(
     assumptions,
     warnings,
   };
+}
+
+/** Takes the windows the helper has not, waits for the helper's last, and adds them all up. */
+function sharedSpectrum(input: HarmonicsInput, windows: HarmonicWindows, helperDone: () => void) {
+  measureHarmonicWindows(input, windows);
+  helperDone();
+  return harmonicSpectrum(input, windows);
 }
 
 /** P/(Vrms·Irms) can land a rounding error above 1 for a pure resistance. */

@@ -61,14 +61,46 @@ export interface HarmonicsInput {
   maxOrder?: number;
 }
 
-export function measureHarmonics(input: HarmonicsInput): HarmonicSpectrum {
+/**
+ * The windows of a record, measured by whichever threads take them: each thread takes the next few by an atomic add
+ * on `next`, and writes each window's RMS current per order into its row of `amps` (maxOrder + 1 values a window).
+ * The windows are then added up in their order, so the spectrum is the same however they were shared out.
+ */
+export interface HarmonicWindows {
+  count: number;
+  next: Int32Array;
+  amps: Float64Array;
+}
+
+/** Windows taken at a time: enough that the atomic add is lost in them, few enough that the threads finish together. */
+const WINDOWS_PER_TAKE = 4;
+
+function windowGeometry(input: HarmonicsInput) {
   const { current, sampleRateHz, frequencyHz, startSample } = input;
   const maxOrder = input.maxOrder ?? MAX_HARMONIC_ORDER;
   const windowCycles = harmonicWindowCycles(frequencyHz);
   const length = (windowCycles * sampleRateHz) / frequencyHz;
-  const sum = new Float64Array(maxOrder + 1);
-  const maxAmps = new Float64Array(maxOrder + 1);
-  const windowAmps = new Float64Array(maxOrder + 1);
+  let count = 0;
+  // The last sample cut by a window's end must exist: the window ends half a sample before the record does.
+  while (startSample + count * length + length <= current.length - 0.5) count++;
+  return { maxOrder, windowCycles, length, count };
+}
+
+/** Windows for measureHarmonicWindows, on shared memory when other threads are to take some. */
+export function harmonicWindows(input: HarmonicsInput, shared: boolean): HarmonicWindows {
+  const { maxOrder, count } = windowGeometry(input);
+  const memory = (bytes: number) => (shared ? new SharedArrayBuffer(bytes) : new ArrayBuffer(bytes));
+  return {
+    count,
+    next: new Int32Array(memory(Int32Array.BYTES_PER_ELEMENT)),
+    amps: new Float64Array(memory(count * (maxOrder + 1) * Float64Array.BYTES_PER_ELEMENT)),
+  };
+}
+
+/** Measures windows, a few at a time, until none is left to take. */
+export function measureHarmonicWindows(input: HarmonicsInput, windows: HarmonicWindows): void {
+  const { current, sampleRateHz, frequencyHz, startSample } = input;
+  const { maxOrder, length, count } = windowGeometry(input);
   const state = new Float64Array(2 * LANES);
   const cosines = new Float64Array(maxOrder + 1);
   const sines = new Float64Array(maxOrder + 1);
@@ -77,20 +109,35 @@ export function measureHarmonics(input: HarmonicsInput): HarmonicSpectrum {
     cosines[order] = Math.cos(omega);
     sines[order] = Math.sin(omega);
   }
-  let windows = 0;
-  // The last sample cut by a window's end must exist: the window ends half a sample before the record does.
-  for (let start = startSample; start + length <= current.length - 0.5; start = startSample + windows * length) {
-    windowSpectrum(current, start, length, maxOrder, cosines, sines, state, windowAmps);
+  for (let first = Atomics.add(windows.next, 0, WINDOWS_PER_TAKE); first < count; first = Atomics.add(windows.next, 0, WINDOWS_PER_TAKE)) {
+    for (let window = first; window < Math.min(count, first + WINDOWS_PER_TAKE); window++) {
+      const out = windows.amps.subarray(window * (maxOrder + 1), (window + 1) * (maxOrder + 1));
+      windowSpectrum(current, startSample + window * length, length, maxOrder, cosines, sines, state, out);
+    }
+  }
+}
+
+/** The spectrum of measured windows: each order's mean and largest over the windows, added up in window order. */
+export function harmonicSpectrum(input: HarmonicsInput, windows: HarmonicWindows): HarmonicSpectrum {
+  const { maxOrder, windowCycles, count } = windowGeometry(input);
+  const sum = new Float64Array(maxOrder + 1);
+  const maxAmps = new Float64Array(maxOrder + 1);
+  for (let window = 0; window < count; window++) {
     for (let order = 1; order <= maxOrder; order++) {
-      const amps = windowAmps[order] as number;
+      const amps = windows.amps[window * (maxOrder + 1) + order] as number;
       sum[order] = (sum[order] as number) + amps;
       if (amps > (maxAmps[order] as number)) maxAmps[order] = amps;
     }
-    windows++;
   }
   const amps = new Float64Array(maxOrder + 1);
-  if (windows > 0) for (let order = 1; order <= maxOrder; order++) amps[order] = (sum[order] as number) / windows;
-  return { windowCycles, windows, amps, maxAmps };
+  if (count > 0) for (let order = 1; order <= maxOrder; order++) amps[order] = (sum[order] as number) / count;
+  return { windowCycles, windows: count, amps, maxAmps };
+}
+
+export function measureHarmonics(input: HarmonicsInput): HarmonicSpectrum {
+  const windows = harmonicWindows(input, false);
+  measureHarmonicWindows(input, windows);
+  return harmonicSpectrum(input, windows);
 }
 
 /**

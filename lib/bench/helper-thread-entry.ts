@@ -3,11 +3,11 @@
 import { parentPort, type MessagePort } from "node:worker_threads";
 import { readClaimedBlocks, type CaptureBlockPlan, type CaptureBlockTally } from "./capture-csv";
 import { findZeroCrossings, peakMagnitude } from "./electrical";
-import { measureHarmonics, type HarmonicsInput } from "./harmonics";
+import { measureHarmonicWindows, type HarmonicsInput, type HarmonicWindows } from "./harmonics";
 
 /** Work the main thread waits for synchronously: the answer comes on `port`, and `done` is set and notified. */
 export type HelperJob =
-  | { kind: "harmonics"; input: HarmonicsInput }
+  | { kind: "harmonic windows"; input: HarmonicsInput; windows: HarmonicWindows }
   | { kind: "peak"; signal: Float64Array }
   | { kind: "crossings"; signal: Float64Array; threshold: number; restSamples: number; after: number };
 
@@ -18,7 +18,7 @@ export type HelperReply = { id: number; tallies: CaptureBlockTally[] } | { id: n
 const messageOf = (error: unknown) => (error instanceof Error ? error.message : String(error));
 
 function answer(job: HelperJob) {
-  if (job.kind === "harmonics") return measureHarmonics(job.input);
+  if (job.kind === "harmonic windows") return measureHarmonicWindows(job.input, job.windows);
   if (job.kind === "peak") return peakMagnitude(job.signal);
   return findZeroCrossings(job.signal, job.threshold, job.restSamples, job.after);
 }

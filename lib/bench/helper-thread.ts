@@ -1,5 +1,5 @@
 // A second thread for the bench math on a two-core machine (the CLI and the benchmark start one): it reads blocks
-// of a large capture beside the main thread, shares the search for zero crossings, and measures the harmonics while
+// of a large capture beside the main thread, shares the search for zero crossings, and measures harmonic windows while
 // the main thread does the rest. Node 20 cannot load TypeScript in a worker thread without a loader of its own
 // (tsx's costs about 34 MB and 0.4 s a thread), so the thread's code is bundled to plain JavaScript by esbuild
 // (tsx's own compiler) as the helper starts.
@@ -10,7 +10,7 @@ import { build, stop } from "esbuild";
 import type { AnalysisHelper } from "./analysis";
 import type { CaptureBlockPlan, CaptureBlockTally } from "./capture-csv";
 import type { ZeroCrossings } from "./electrical";
-import type { HarmonicSpectrum, HarmonicsInput } from "./harmonics";
+import type { HarmonicsInput, HarmonicWindows } from "./harmonics";
 import type { HelperJob, HelperReply, HelperRequest } from "./helper-thread-entry";
 
 /** How long the main thread waits for a job before it gives up on a thread that died. */
@@ -86,7 +86,7 @@ export async function startHelperThread(): Promise<HelperThread> {
         send({ kind: "blocks", id, plan });
       });
     },
-    startHarmonics: (input: HarmonicsInput) => startJob<HarmonicSpectrum>({ kind: "harmonics", input }),
+    startHarmonicWindows: (input: HarmonicsInput, windows: HarmonicWindows) => startJob<void>({ kind: "harmonic windows", input, windows }),
     startPeak: (signal: Float64Array) => startJob<number>({ kind: "peak", signal }),
     startCrossings: (signal: Float64Array, threshold: number, restSamples: number, after: number) =>
       startJob<ZeroCrossings>({ kind: "crossings", signal, threshold, restSamples, after }),
