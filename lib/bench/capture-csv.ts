@@ -926,7 +926,8 @@ class CaptureReader {
     const roles = this.roles;
     const columnCount = this.columnCount;
     const hasTime = this.hasTime;
-    const plainRows = !roles.includes(TIME_TIMESTAMP) && !roles.includes(SKIP);
+    // Off for the rest of the chunk once a row needs the full loop: the next rows are likely written the same way.
+    let plainRows = !roles.includes(TIME_TIMESTAMP) && !roles.includes(SKIP);
     const scaleCurrent = this.scaleCurrent;
     const scaleVoltage = this.scaleVoltage;
     const scaleTemperature = this.scaleTemperature;
@@ -1024,6 +1025,7 @@ class CaptureReader {
             p = -p;
             continue;
           }
+          plainRows = false;
           time = values[TIME_SECONDS] as number;
           currentValue = values[CURRENT] as number;
           voltageValue = values[VOLTAGE] as number;

@@ -117,6 +117,19 @@ describe("reading captures", () => {
     expect(Array.from(commas.current ?? [])).toEqual(expected);
   });
 
+  it("gives a number the same value whether its row is plain or needs the full reading", async () => {
+    // Plain rows take the lean loop; blanks, quotes, a plus, an unmapped column or many digits send a row to the full one.
+    const numbers = ["1.5", "-0.0012", "325.27", "2.5e-3", "-7E2", "0.1", "123456.789012345", "9007199254740993", "1e30"];
+    const forms = [(n: string) => n, (n: string) => ` ${n} `, (n: string) => `"${n}"`, (n: string) => (n.startsWith("-") ? n : `+${n}`)];
+    const read = async (form: (n: string) => string, extra: string) =>
+      Array.from((await readCapture(["time,current" + (extra ? ",note" : ""), ...numbers.map((n, k) => `${k},${form(n)}${extra}`)].join("\n"), { current: { column: "current", scale: 1 } })).current ?? []);
+    const expected = numbers.map(Number);
+    for (const form of forms) {
+      expect(await read(form, "")).toEqual(expected);
+      expect(await read(form, ",7")).toEqual(expected);
+    }
+  });
+
   it("skips blank, blank-looking and comment lines among the rows", async () => {
     const capture = await readCapture("time,current\n0,1\n\n   \t\r\n# marker: load step\n0.001,2\n");
     expect(Array.from(capture.current ?? [])).toEqual([1, 2]);
