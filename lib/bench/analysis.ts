@@ -300,6 +300,7 @@ export function analyzeSamples(
     lamp: parsed.lamp ?? (nominalVoltage <= 150 ? 120 : 230),
     impedance: parsed.impedance,
     dmaxLimitPercent: parsed.dmaxLimitPercent,
+    currentPeakAmps: currentRecord.peak,
   });
   stage("flicker");
 

@@ -33,6 +33,8 @@ export interface FlickerInput {
   /** Supply impedance; null takes the IEC 61000-3-3 reference impedance where one is defined. */
   impedance: SupplyImpedance | null;
   dmaxLimitPercent: DmaxLimitPercent;
+  /** The current's largest magnitude, when the caller has measured it already. */
+  currentPeakAmps?: number;
 }
 
 export interface FlickerResult {
@@ -83,7 +85,7 @@ export function estimateFlicker(input: FlickerInput): FlickerResult | FlickerUna
     return unavailable(`supply impedance must be finite and non-negative, got ${impedance.resistanceOhm} + j${impedance.reactanceOhm} Ω`);
   }
 
-  const halfCycles = pccHalfCycleRms({ current, sampleRateHz, frequencyHz, nominalVoltage, nominalFrequencyHz: supply, impedance });
+  const halfCycles = pccHalfCycleRms({ current, sampleRateHz, frequencyHz, nominalVoltage, nominalFrequencyHz: supply, impedance, currentPeakAmps: input.currentPeakAmps });
   const seconds = halfCycles.rms.length * halfCycles.halfCycleSeconds;
   if (seconds < MIN_CAPTURE_SECONDS) {
     return unavailable(`the capture holds ${seconds.toFixed(2)} s of whole half-cycles; flicker needs at least ${MIN_CAPTURE_SECONDS} s`);

@@ -36,6 +36,8 @@ export interface PccSimulation {
   /** The frequency at which the reactance is stated, to turn X into an inductance. */
   nominalFrequencyHz: number;
   impedance: SupplyImpedance;
+  /** The current's largest magnitude (peakMagnitude), when the caller has it already. */
+  currentPeakAmps?: number;
 }
 
 /** Cycles with less than a tenth of the largest fundamental current say too little about where the source's phase is. */
@@ -54,12 +56,12 @@ const MIN_CONDUCTING_SHARE = 0.25;
  * inside it. Cycles without enough current get the phase interpolated from their neighbours (where
  * it barely matters: with no current the source voltage is the point-of-connection voltage).
  */
-function fundamentalPhaseByCycle(current: Float64Array, sampleRateHz: number, frequencyHz: number, cycles: number) {
+function fundamentalPhaseByCycle(current: Float64Array, currentPeakAmps: number, sampleRateHz: number, frequencyHz: number, cycles: number) {
   const samplesPerCycle = sampleRateHz / frequencyHz;
   const step = (2 * Math.PI * frequencyHz) / sampleRateHz;
   const stepCos = Math.cos(step);
   const stepSin = Math.sin(step);
-  const threshold = CONDUCTING_SHARE * peakMagnitude(current);
+  const threshold = CONDUCTING_SHARE * currentPeakAmps;
   const phase = new Float64Array(cycles);
   const amplitude = new Float64Array(cycles);
   for (let k = 0; k < cycles; k++) {
@@ -131,7 +133,7 @@ export function pccHalfCycleRms(sim: PccSimulation): HalfCycleVoltage {
   const { current, sampleRateHz, frequencyHz, nominalVoltage, impedance } = sim;
   const samplesPerCycle = sampleRateHz / frequencyHz;
   const cycles = Math.floor(current.length / samplesPerCycle);
-  const phase = fundamentalPhaseByCycle(current, sampleRateHz, frequencyHz, cycles);
+  const phase = fundamentalPhaseByCycle(current, sim.currentPeakAmps ?? peakMagnitude(current), sampleRateHz, frequencyHz, cycles);
 
   const r = impedance.resistanceOhm;
   const inductance = impedance.reactanceOhm / (2 * Math.PI * sim.nominalFrequencyHz);
