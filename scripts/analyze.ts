@@ -233,12 +233,12 @@ function summary(file: string, result: CaptureAnalysis): string {
 
 async function main(argv: string[]): Promise<number> {
   const json = argv.includes("--json");
-  // The helper thread starts while the flags are read; a failure to start is reported like any other.
-  const helperStarting = startHelperThread();
-  helperStarting.catch(() => undefined);
+  // The helper thread starts while the flags and the start of the capture are read; a failure to start is reported
+  // like any other, when a large capture's blocks wait for it.
+  const helper = startHelperThread();
   try {
     const flags = readFlags(argv);
-    const result = await analyzeCapture({ path: flags.file }, toOptions(flags), undefined, await helperStarting);
+    const result = await analyzeCapture({ path: flags.file }, toOptions(flags), undefined, helper);
     process.stdout.write(flags.json ? `${JSON.stringify(result)}\n` : `${summary(flags.file, result)}\n`);
     return 0;
   } catch (error) {

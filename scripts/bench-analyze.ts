@@ -121,7 +121,7 @@ async function measureAnalysis(path: string): Promise<AnalysisTiming> {
   let stageCpu = process.cpuUsage();
   const started = performance.now();
   // Started inside the measured time, as the CLI starts it.
-  const helper = await startHelperThread();
+  const helper = startHelperThread();
   stages.push({ stage: "helper", milliseconds: performance.now() - started, cpuMilliseconds: cpuMillisecondsSince(stageCpu) });
   stageCpu = process.cpuUsage();
   const result = await analyzeCapture(

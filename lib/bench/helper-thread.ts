@@ -20,7 +20,38 @@ export interface HelperThread extends AnalysisHelper {
   close(): Promise<void>;
 }
 
-export async function startHelperThread(): Promise<HelperThread> {
+/**
+ * Starts the helper thread in the background: bundling its code and starting the thread take some 50 ms, which pass
+ * while the caller reads the start of the capture. Reading blocks waits for the thread; the jobs come after such a
+ * read (only its shared arrays go to the helper), so they find it running.
+ */
+export function startHelperThread(): HelperThread {
+  const starting = connectHelperThread();
+  let running: HelperThread | undefined;
+  // A failure to start reaches whoever waits for the thread; until then it must not go unhandled.
+  starting.then(
+    (helper) => {
+      running = helper;
+    },
+    () => undefined,
+  );
+  const started = () => {
+    if (running === undefined) throw new Error("the helper thread is still starting: its jobs follow a read of blocks, which waits for it");
+    return running;
+  };
+  return {
+    readBlocks: async (plan) => (await starting).readBlocks(plan),
+    startHarmonicWindows: (input, windows) => started().startHarmonicWindows(input, windows),
+    startPeak: (signal) => started().startPeak(signal),
+    startCrossings: (signal, threshold, restSamples, after) => started().startCrossings(signal, threshold, restSamples, after),
+    async close() {
+      const helper = await starting.catch(() => undefined);
+      await helper?.close();
+    },
+  };
+}
+
+async function connectHelperThread(): Promise<HelperThread> {
   const bundle = await build({
     entryPoints: [fileURLToPath(new URL("./helper-thread-entry.ts", import.meta.url))],
     bundle: true,

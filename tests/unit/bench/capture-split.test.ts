@@ -26,7 +26,7 @@ let helper: HelperThread;
 
 beforeAll(async () => {
   directory = mkdtempSync(join(tmpdir(), "benchplate-split-"));
-  helper = await startHelperThread();
+  helper = startHelperThread();
 });
 
 afterAll(async () => {
