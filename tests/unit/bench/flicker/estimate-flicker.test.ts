@@ -268,8 +268,9 @@ describe("flicker unavailable", () => {
   });
 });
 
-describe("speed", () => {
-  it("estimates a 10 M-sample, 50 kS/s current in under 2 s of CPU time", () => {
+describe("a long record", () => {
+  // Speed is measured by npm run bench:analyze, not here; this checks that 200 s of samples keep d exact.
+  it("keeps d ≈ 0.756 % (REFERENCES.md §2, derived) over a 10 M-sample, 50 kS/s current, within 1 %", () => {
     const current = burstFiredHeaterCurrent({
       watts: 1000,
       nominalVoltage: 230,
@@ -280,12 +281,7 @@ describe("speed", () => {
       noiseAmps: 0.01,
     });
     expect(current.length).toBe(10_000_000);
-    // CPU time of this process rather than wall time: other work on a shared machine must not fail it.
-    const started = process.cpuUsage();
     const result = estimate(current, { sampleRateHz: 50_000 });
-    const used = process.cpuUsage(started);
-    const seconds = (used.user + used.system) / 1e6;
     expect(Math.abs(result.dmaxPercent / 0.756 - 1)).toBeLessThan(0.01);
-    expect(seconds).toBeLessThan(2);
   }, 30_000);
 });
