@@ -115,10 +115,13 @@ export class SectionCascade {
   private readonly count: number;
 
   constructor(sections: readonly Biquad[]) {
-    this.count = sections.length;
+    // Sections run in pairs; an odd one out is paired with y = x, which a section of b0 = 1 and zeros elsewhere
+    // gives exactly (its state stays ±0, and adding ±0 changes no number).
+    const paired = sections.length % 2 === 0 ? sections : [...sections, { b0: 1, b1: 0, b2: 0, a1: 0, a2: 0 }];
+    this.count = paired.length;
     this.coefficients = new Float64Array(5 * this.count);
     this.state = new Float64Array(2 * this.count);
-    sections.forEach((q, i) => this.coefficients.set([q.b0, q.b1, q.b2, q.a1, q.a2], 5 * i));
+    paired.forEach((q, i) => this.coefficients.set([q.b0, q.b1, q.b2, q.a1, q.a2], 5 * i));
   }
 
   /**
@@ -130,8 +133,8 @@ export class SectionCascade {
   processBlock(values: Float64Array, length: number): void {
     const c = this.coefficients;
     const z = this.state;
-    let i = 0;
-    for (; i + 1 < this.count && length > 0; i += 2) {
+    if (length === 0) return;
+    for (let i = 0; i < this.count; i += 2) {
       const b0 = c[5 * i]!;
       const b1 = c[5 * i + 1]!;
       const b2 = c[5 * i + 2]!;
@@ -166,24 +169,6 @@ export class SectionCascade {
       w1 = d2 * y - e2 * v;
       values[length - 1] = v;
       z.set([z0, z1, w0, w1], 2 * i);
-    }
-    for (; i < this.count; i++) {
-      const b0 = c[5 * i]!;
-      const b1 = c[5 * i + 1]!;
-      const b2 = c[5 * i + 2]!;
-      const a1 = c[5 * i + 3]!;
-      const a2 = c[5 * i + 4]!;
-      let z0 = z[2 * i]!;
-      let z1 = z[2 * i + 1]!;
-      for (let n = 0; n < length; n++) {
-        const x = values[n]!;
-        const y = b0 * x + z0;
-        z0 = b1 * x - a1 * y + z1;
-        z1 = b2 * x - a2 * y;
-        values[n] = y;
-      }
-      z[2 * i] = z0;
-      z[2 * i + 1] = z1;
     }
   }
 }
