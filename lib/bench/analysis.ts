@@ -220,14 +220,15 @@ export function analyzeSamples(
     stageStart = now;
   };
 
-  // On a helper thread (signals on shared memory) the peaks are measured while this one sets the crossings' band,
-  // the later half's crossings are found while this one finds the earlier half's, and the harmonics are measured
-  // while this one works through the half-cycles and the flicker, after which it takes the windows still left.
+  // On a helper thread (signals on shared memory) the current's peak is measured while this one sets the crossings'
+  // band, the later half's crossings are found while this one finds the earlier half's, and the harmonics are
+  // measured while this one works through the half-cycles and the flicker, after which it takes the windows left.
   const onHelper = helper !== undefined && current.buffer instanceof SharedArrayBuffer ? helper : null;
   const peakOf = (signal: Float64Array) => (onHelper ? onHelper.startPeak(signal) : () => peakMagnitude(signal));
   const currentPeak = peakOf(current);
-  const voltagePeak = voltage === null ? null : peakOf(voltage);
   const mains = measureMainsFrequency({ current, voltage, sampleRateHz, nominalHz, scanAfter: onHelper?.startCrossings });
+  // Not needed before the half-cycles are added up, so it waits behind the crossings on the helper.
+  const voltagePeak = voltage === null ? null : peakOf(voltage);
   const { frequencyHz } = mains;
   const windowCycles = harmonicWindowCycles(frequencyHz);
   assertEnoughCycles(current.length, sampleRateHz, frequencyHz, windowCycles);
