@@ -32,6 +32,7 @@ import {
   harmonicWindows,
   measureHarmonics,
   measureHarmonicWindows,
+  type HarmonicSpectrum,
   type HarmonicsInput,
   type HarmonicsReport,
   type HarmonicWindows,
@@ -242,8 +243,7 @@ export function analyzeSamples(
 
   const boundaries = halfCycleBoundaries(mains.crossings, sampleRateHz, frequencyHz, current.length);
   const harmonicsInput = { current, sampleRateHz, frequencyHz, startSample: boundaries[0] ?? 0 };
-  const sharedWindows = onHelper ? harmonicWindows(harmonicsInput, true) : null;
-  const helperWindows = onHelper && sharedWindows ? onHelper.startHarmonicWindows(harmonicsInput, sharedWindows) : null;
+  const sharedSpectrum = onHelper ? startSharedHarmonics(onHelper, harmonicsInput) : null;
   const table = tabulateHalfCycles(current, voltage, boundaries);
   const record = sumHalfCycles(table, 0, table.count);
   const conduction = classifyConduction(table, sampleRateHz);
@@ -306,7 +306,7 @@ export function analyzeSamples(
   stage("flicker");
 
   const harmonics = assessHarmonics({
-    spectrum: sharedWindows && helperWindows ? sharedSpectrum(harmonicsInput, sharedWindows, helperWindows) : measureHarmonics(harmonicsInput),
+    spectrum: sharedSpectrum ? sharedSpectrum() : measureHarmonics(harmonicsInput),
     harmonicClass: parsed.harmonicClass,
     nominalVoltage,
     powerW: parsed.rating?.ratedPowerW ?? powerWhileConducting,
@@ -395,11 +395,15 @@ export function analyzeSamples(
   };
 }
 
-/** Takes the windows the helper has not, waits for the helper's last, and adds them all up. */
-function sharedSpectrum(input: HarmonicsInput, windows: HarmonicWindows, helperDone: () => void) {
-  measureHarmonicWindows(input, windows);
-  helperDone();
-  return harmonicSpectrum(input, windows);
+/** Sets the helper on the harmonic windows; the function returned takes the windows it has not, waits for its last, and adds them all up. */
+function startSharedHarmonics(helper: AnalysisHelper, input: HarmonicsInput): () => HarmonicSpectrum {
+  const windows = harmonicWindows(input, true);
+  const helperDone = helper.startHarmonicWindows(input, windows);
+  return () => {
+    measureHarmonicWindows(input, windows);
+    helperDone();
+    return harmonicSpectrum(input, windows);
+  };
 }
 
 /** P/(Vrms·Irms) can land a rounding error above 1 for a pure resistance. */

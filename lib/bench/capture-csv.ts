@@ -320,10 +320,6 @@ export async function readClaimedBlocks(plan: CaptureBlockPlan, side: "front" | 
 /** A block reached the rows set aside for it: not a problem with the file, so not a CaptureError. */
 class RowLimitReached extends Error {}
 
-/** The most rows `bytes` of data can hold: a row takes at least a delimiter between columns, a character in each mapped one and a line feed. */
-function rowsAtMost(bytes: number, columnCount: number): number {
-  return Math.floor(bytes / (columnCount + 1)) + 1;
-}
 
 /** Line feeds four bytes at a time: a word holds one only when (x − 0x01010101) & ~x & 0x80808080 is set for x = word ^ 0x0a0a0a0a. */
 function countLineFeeds(buffer: Uint8Array, length: number): number {
@@ -540,9 +536,9 @@ class CaptureReader {
     };
   }
 
-  /** The most rows `bytes` more of data can hold. */
+  /** The most rows `bytes` more of data can hold: a row takes at least a delimiter between columns, a character in each mapped one and a line feed. */
   rowsAtMost(bytes: number): number {
-    return rowsAtMost(bytes, this.columnCount);
+    return Math.floor(bytes / (this.columnCount + 1)) + 1;
   }
 
   /** Rows per byte of data so far. */
@@ -1166,17 +1162,11 @@ class CaptureReader {
           }
           const numberEnd = p;
           while (c === SPACE || c === QUOTE) c = bytes[++p] as number;
-          if (digits === 0 || !(c === delimiter || c === LF || c === CR)) {
-            this.line = line;
-            throw this.numberError(bytes, fieldStart, end, field);
-          }
+          if (digits === 0 || !(c === delimiter || c === LF || c === CR)) throw this.numberError(bytes, fieldStart, end, field);
           // Exact when the digits fit 2^53 and |exponent| ≤ 22: one correctly rounded multiply or divide.
           if (digits > FAST_PATH_DIGITS || exponent > 22 || exponent < -22) {
             value = slowNumber(bytes, numberStart, numberEnd);
-            if (!Number.isFinite(value)) {
-              this.line = line;
-              throw this.numberError(bytes, fieldStart, end, field);
-            }
+            if (!Number.isFinite(value)) throw this.numberError(bytes, fieldStart, end, field);
           } else if (exponent === 0) value = mantissa;
           else if (exponent > 0) value = mantissa * (POWERS_OF_TEN[exponent] as number);
           else value = mantissa / (POWERS_OF_TEN[-exponent] as number);
@@ -1199,7 +1189,6 @@ class CaptureReader {
         p++;
         break;
       }
-      this.line = line;
       throw new CaptureError("binary data: a carriage return inside a row", line);
     }
     if (field !== columnCount) {
@@ -1238,7 +1227,6 @@ class CaptureReader {
     const text = Buffer.from(bytes.buffer, bytes.byteOffset + start, end - start).toString("utf8").trim().replace(/^"|"$/g, "");
     const match = TIMESTAMP.exec(text);
     if (match === null) {
-      this.line = line;
       throw new CaptureError(
         `text in numbers: "${clip(text)}" in column ${describeColumn(field, this.columns)} is not an ISO 8601 timestamp like the first row's`,
         line,

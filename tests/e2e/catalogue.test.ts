@@ -1,7 +1,7 @@
 import type { Page, Response } from "playwright-core";
 import { beforeAll, describe, expect, it } from "vitest";
 import { demoPublications } from "@/db/seeds/editorial-data";
-import { DESKTOP_VIEWPORT, PHONE_VIEWPORT, browserForSuite, hydrated, url } from "../support/e2e";
+import { DESKTOP_VIEWPORT, PHONE_VIEWPORT, browserForSuite, openHydrated, url } from "../support/e2e";
 
 // The catalogue's filters and sort go through GET /api/tools and into the address; the report search finds a seeded
 // published report by a word of its body. Run at a phone's width and a desktop's.
@@ -51,8 +51,7 @@ describe.each([
   });
 
   it("filters by kind and sorts by rated power through the route handler, keeping both in the address", async () => {
-    await page.goto(url("/tools"));
-    await hydrated(page.getByLabel("Kind of tool"));
+    await openHydrated(page, "/tools");
     const response = await catalogueFetch(page, () => page.getByLabel("Kind of tool").selectOption("heat_gun"), { category: "heat_gun" });
     const answered = (await response.json()) as { category: string }[];
     expect(answered.length).toBeGreaterThan(0);

@@ -9,7 +9,7 @@ import { demoPassword, demoPeople } from "@/db/seeds/people-and-catalogue-data";
 import { analyses, reports } from "@/db/schema";
 import type { StoredAnalysisOptions } from "@/lib/analysis-options";
 import { analyzeCapture } from "@/lib/bench/analysis";
-import { DESKTOP_VIEWPORT, browserForSuite, hydrated, url, visible } from "../support/e2e";
+import { DESKTOP_VIEWPORT, browserForSuite, openHydrated, visible } from "../support/e2e";
 
 const reviewer = demoPeople.find((person) => person.role === "reviewer")!;
 const fixture = path.join(import.meta.dirname, "../fixtures/captures/orrery-orm42-hot-air.csv");
@@ -38,8 +38,7 @@ describe("a reviewer goes from a tool on the bench to a report ready for the edi
   let analysisId = "";
 
   it("adds the tool with a photo", async () => {
-    await page.goto(url("/workspace/tools/new"));
-    await hydrated(page.locator("body"));
+    await openHydrated(page, "/workspace/tools/new");
     await page.getByLabel("Maker", { exact: true }).selectOption({ label: "Quillfern Thermal" });
     await page.getByLabel("Model", { exact: true }).fill(model);
     await page.getByLabel("Kind of tool").selectOption({ label: "Hot-air rework station" });
@@ -55,8 +54,7 @@ describe("a reviewer goes from a tool on the bench to a report ready for the edi
   });
 
   it("registers the current clamp in the lab", async () => {
-    await page.goto(url("/workspace/instruments/new"));
-    await hydrated(page.locator("body"));
+    await openHydrated(page, "/workspace/instruments/new");
     await page.getByLabel("Kind", { exact: true }).selectOption({ label: "Current clamp" });
     await page.getByLabel("Lab", { exact: true }).selectOption({ label: "Wrenford Bench" });
     await page.getByLabel("Maker", { exact: true }).fill("Halvard Instruments");
@@ -72,8 +70,7 @@ describe("a reviewer goes from a tool on the bench to a report ready for the edi
   });
 
   it("writes the protocol", async () => {
-    await page.goto(url("/workspace/protocols/new"));
-    await hydrated(page.locator("body"));
+    await openHydrated(page, "/workspace/protocols/new");
     await page.getByLabel("Name", { exact: true }).fill(protocolName);
     await page.getByLabel("Summary").fill("Power input of a hot-air station at 230 V 50 Hz, full demand.");
     await page.getByLabel("Supply voltage (V)").fill("230");
@@ -85,8 +82,7 @@ describe("a reviewer goes from a tool on the bench to a report ready for the edi
   });
 
   it("creates a run, uploads a capture with a progress bar, maps it, waits for the worker and sees the CLI's figures", async () => {
-    await page.goto(url("/workspace/runs/new"));
-    await hydrated(page.locator("body"));
+    await openHydrated(page, "/workspace/runs/new");
     await page.getByLabel("Tool", { exact: true }).selectOption({ label: `Quillfern Thermal ${model}` });
     await page.getByLabel("Protocol (latest version)").selectOption({ label: `${protocolName} v1` });
     await expect.poll(() => page.getByLabel("Nominal supply voltage (V)").inputValue()).toBe("230");
@@ -146,8 +142,7 @@ describe("a reviewer goes from a tool on the bench to a report ready for the edi
   });
 
   it("writes a report embedding those figures, previews it and submits it", async () => {
-    await page.goto(url("/workspace/reports/new"));
-    await hydrated(page.locator("body"));
+    await openHydrated(page, "/workspace/reports/new");
     await page.getByLabel("Title").fill(`The ${model} on the bench`);
     await page.getByLabel("Tool", { exact: true }).selectOption({ label: `Quillfern Thermal ${model}` });
     await Promise.all([page.waitForURL(/\/workspace\/reports\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Start the draft" }).click()]);

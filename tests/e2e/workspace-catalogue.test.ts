@@ -3,7 +3,7 @@ import type { Page } from "playwright-core";
 import sharp from "sharp";
 import { beforeAll, describe, expect, it } from "vitest";
 import { demoPassword, demoPeople } from "@/db/seeds/people-and-catalogue-data";
-import { DESKTOP_VIEWPORT, browserForSuite, hydrated, launchBrowser, signIn, url, visible } from "../support/e2e";
+import { DESKTOP_VIEWPORT, browserForSuite, launchBrowser, openHydrated, signIn, url, visible } from "../support/e2e";
 
 const reviewer = demoPeople.find((person) => person.role === "reviewer")!;
 const reader = demoPeople.find((person) => person.role === "reader")!;
@@ -19,8 +19,7 @@ describe("a reviewer fills the workspace catalogue", () => {
 
   it("adds a tool after being told what to fix, then a photo that the public page serves in web sizes", async () => {
     const model = `Aeris E2E ${mark}`;
-    await page.goto(url("/workspace/tools/new"));
-    await hydrated(page.locator("body"));
+    await openHydrated(page, "/workspace/tools/new");
     await page.getByLabel("Maker", { exact: true }).selectOption({ label: "Quillfern Thermal" });
     await page.getByLabel("Kind of tool").selectOption({ label: "Hot-air rework station" });
     await page.getByLabel("Rated power input (W)").fill("650");
@@ -67,8 +66,7 @@ describe("a reviewer fills the workspace catalogue", () => {
 
   it("registers an instrument with its accuracy line", async () => {
     const serial = `E2E-${mark}`;
-    await page.goto(url("/workspace/instruments/new"));
-    await hydrated(page.locator("body"));
+    await openHydrated(page, "/workspace/instruments/new");
     await page.getByLabel("Kind", { exact: true }).selectOption({ label: "Current clamp" });
     await page.getByLabel("Maker", { exact: true }).fill("Halvard Instruments");
     await page.getByLabel("Model", { exact: true }).fill("HC-40 AC/DC clamp");
@@ -92,8 +90,7 @@ describe("a reviewer fills the workspace catalogue", () => {
 
   it("writes a protocol, revises it, and both versions stay readable", async () => {
     const name = `E2E bench protocol ${mark}`;
-    await page.goto(url("/workspace/protocols/new"));
-    await hydrated(page.locator("body"));
+    await openHydrated(page, "/workspace/protocols/new");
     expect(await page.getByLabel("Safety cautions").inputValue()).toMatch(/Never float an oscilloscope's ground/);
     await page.getByLabel("Name", { exact: true }).fill(name);
     await page.getByLabel("Summary").fill("Power input and airflow of a hot-air station at 230 V.");

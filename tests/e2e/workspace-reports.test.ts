@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDatabase, db } from "@/db";
 import { reports, users } from "@/db/schema";
 import { demoPassword } from "@/db/seeds/people-and-catalogue-data";
-import { DESKTOP_VIEWPORT, hydrated, launchBrowser, signIn, url, type E2eBrowser } from "../support/e2e";
+import { DESKTOP_VIEWPORT, launchBrowser, openHydrated, signIn, url, type E2eBrowser } from "../support/e2e";
 import { analyseFixtureCapture, createRun, createTool } from "../support/report-fixtures";
 
 // Runs against a built app with the test database and fakes (the same environment the app was started with).
@@ -72,8 +72,7 @@ describe("reports in the workspace", () => {
   it("writes a report with embeds, previews it live and submits it", async () => {
     const page = await browser.newPage();
     const dialogs = await watchForScript(page);
-    await page.goto(url("/workspace/reports/new"));
-    await hydrated(page.locator("body"));
+    await openHydrated(page, "/workspace/reports/new");
     await page.getByLabel("Title").fill("The bench station measured");
     await page.getByLabel("Tool", { exact: true }).selectOption({ label: toolName });
     await Promise.all([page.waitForURL(/\/workspace\/reports\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Start the draft" }).click()]);
@@ -123,8 +122,7 @@ describe("reports in the workspace", () => {
   it("keeps script, event handlers, javascript: links and unknown elements inert in the preview and the saved report", async () => {
     const page = await browser.newPage();
     const dialogs = await watchForScript(page);
-    await page.goto(url("/workspace/reports/new"));
-    await hydrated(page.locator("body"));
+    await openHydrated(page, "/workspace/reports/new");
     await page.getByLabel("Title").fill("Hostile text");
     await page.getByLabel("Tool", { exact: true }).selectOption({ label: toolName });
     await Promise.all([page.waitForURL(/\/workspace\/reports\/[0-9a-f-]{36}$/), page.getByRole("button", { name: "Start the draft" }).click()]);

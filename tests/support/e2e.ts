@@ -109,6 +109,12 @@ export async function hydrated(locator: Locator, timeout = 20_000): Promise<void
     .toBe(true);
 }
 
+/** Opens a page and waits until React has hydrated it, for a test that acts on its client-side controls at once. */
+export async function openHydrated(page: Page, pathname: string): Promise<void> {
+  await page.goto(url(pathname));
+  await hydrated(page.locator("body"));
+}
+
 /** Waits until the first element with this text is visible. */
 export async function visible(page: Page, text: string | RegExp, timeout = 20_000): Promise<void> {
   await expect.poll(() => page.getByText(text).first().isVisible(), { timeout }).toBe(true);
