@@ -118,7 +118,7 @@ describe("reading captures", () => {
   });
 
   it("gives a number the same value whether its row is plain or needs the full reading", async () => {
-    // Plain rows take the lean loop; blanks, quotes, a plus, an unmapped column or many digits send a row to the full one.
+    // Plain rows go to the WebAssembly reader; blanks, quotes, a plus, an unmapped column or many digits send a row to the full one.
     const numbers = ["1.5", "-0.0012", "325.27", "2.5e-3", "-7E2", "0.1", "123456.789012345", "9007199254740993", "1e30"];
     const forms = [(n: string) => n, (n: string) => ` ${n} `, (n: string) => `"${n}"`, (n: string) => (n.startsWith("-") ? n : `+${n}`)];
     const read = async (form: (n: string) => string, extra: string) =>
