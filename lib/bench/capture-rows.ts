@@ -11,7 +11,7 @@ const INPUT_AT = 4096;
 /** Bytes of lines loaded at a time. */
 const WINDOW_BYTES = 1 << 20;
 /** Rows one call reads at most. */
-const CALL_ROWS = 1 << 16;
+const CALL_ROWS = 1 << 14;
 const CURRENT_AT = INPUT_AT + WINDOW_BYTES;
 const VOLTAGE_AT = CURRENT_AT + CALL_ROWS * 8;
 const TEMPERATURE_AT = VOLTAGE_AT + CALL_ROWS * 8;
