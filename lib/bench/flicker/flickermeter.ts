@@ -49,9 +49,15 @@ const CALIBRATION_DELTA_V_OVER_V = 0.0025;
 
 export type SupplyFrequency = 50 | 60;
 
-/** The squaring demodulator's output: mean square of the voltage over consecutive intervals at a uniform rate. */
+/**
+ * The squaring demodulator's output: mean square of the voltage over consecutive intervals at a uniform rate, held
+ * as levels each lasting `samplesPerLevel` samples (sample j is level ⌊j / samplesPerLevel⌋, the last one held to
+ * the end), so that half-cycle values need no array of a million samples.
+ */
 export interface DemodulatedVoltage {
-  meanSquare: Float64Array;
+  levels: Float64Array;
+  samplesPerLevel: number;
+  length: number;
   rateHz: number;
 }
 
@@ -109,7 +115,7 @@ function demodulateVoltage(voltage: Float64Array, sampleRateHz: number): Demodul
     }
     meanSquare[b] = sum / block;
   }
-  return { meanSquare, rateHz: sampleRateHz / block };
+  return { levels: meanSquare, samplesPerLevel: 1, length: count, rateHz: sampleRateHz / block };
 }
 
 /**
@@ -119,14 +125,8 @@ function demodulateVoltage(voltage: Float64Array, sampleRateHz: number): Demodul
  * Butterworth would have removed.
  */
 export function demodulateHalfCycles(rms: Float64Array, halfCycleSeconds: number): DemodulatedVoltage {
-  const samplesPerHalfCycle = halfCycleSeconds * INTERNAL_RATE_HZ;
-  const count = Math.round(rms.length * samplesPerHalfCycle);
-  const meanSquare = new Float64Array(count);
-  for (let j = 0; j < count; j++) {
-    const u = rms[Math.min(rms.length - 1, Math.floor(j / samplesPerHalfCycle))]!;
-    meanSquare[j] = u * u;
-  }
-  return { meanSquare, rateHz: INTERNAL_RATE_HZ };
+  const samplesPerLevel = halfCycleSeconds * INTERNAL_RATE_HZ;
+  return { levels: rms.map((u) => u * u), samplesPerLevel, length: Math.round(rms.length * samplesPerLevel), rateHz: INTERNAL_RATE_HZ };
 }
 
 /** Instantaneous flicker sensation over the 600 s observation period, one value per demodulated sample. */
@@ -136,8 +136,9 @@ export function pinstSeries(
   lamp: Lamp,
   observation: Observation,
 ): Float64Array {
-  const { meanSquare, rateHz } = demodulated;
-  const length = meanSquare.length;
+  const { levels, samplesPerLevel, length, rateHz } = demodulated;
+  const lastLevel = levels.length - 1;
+  const meanSquare = (j: number) => levels[Math.min(lastLevel, Math.floor(j / samplesPerLevel))]!;
   const observed = Math.round(OBSERVATION_SECONDS * rateHz);
   const settling = Math.round(SETTLING_SECONDS * rateHz);
   if (length === 0) throw new RangeError("flickermeter input is empty");
@@ -153,9 +154,8 @@ export function pinstSeries(
   const scale = pinstScale(supply, rateHz);
   const adapt = -Math.expm1(-1 / (rateHz * ADAPTOR_TIME_CONSTANT_SECONDS));
   // Starting the adaptor at the record's mean square spares the minutes its one-minute time constant would need to settle.
-  // A loop rather than reduce, whose callback takes each of the million samples as a number on the heap.
   let total = 0;
-  for (let j = 0; j < length; j++) total += meanSquare[j]!;
+  for (let j = 0; j < length; j++) total += meanSquare(j);
   let reference = total / length;
   if (!(reference > 0)) throw new RangeError("flickermeter input has no voltage");
 
@@ -165,7 +165,7 @@ export function pinstSeries(
   for (let from = -settling; from < observed; from += PINST_BLOCK) {
     const count = Math.min(PINST_BLOCK, observed - from);
     for (let m = 0; m < count; m++) {
-      const x = meanSquare[index]!;
+      const x = meanSquare(index);
       index = index + 1 === length ? 0 : index + 1;
       reference += adapt * (x - reference);
       // Subtracting the steady level keeps the high-pass from starting on a unit step.
