@@ -57,10 +57,14 @@ async function listCurrentRevisions<Content>({ content, where }: { content: SQL<
   }));
 }
 
+/** One tool's result rows of these revisions, in the catalogue's order. */
+function toolResults(revisions: PublishedRevisionSource<FrozenResultContent>[], toolSlug: string): PublishedResult[] {
+  return revisions.flatMap((revision) => flattenPublishedResults(revision, { toolSlug })).sort(compareResults);
+}
+
 /** Every published result for one tool across all readable reports and protocol versions, retracted ones flagged. */
 export async function listPublishedResultsForTool({ toolSlug }: { toolSlug: string }): Promise<PublishedResult[]> {
-  const revisions = await listCurrentRevisions({ content: resultContent, where: citesTool(toolSlug) });
-  return revisions.flatMap((revision) => flattenPublishedResults(revision, { toolSlug })).sort(compareResults);
+  return toolResults(await listCurrentRevisions({ content: resultContent, where: citesTool(toolSlug) }), toolSlug);
 }
 
 /** The result rows of one readable report's current published revision; empty when the report is not readable. */
@@ -69,19 +73,14 @@ export async function listPublishedResultsForReport({ slug }: { slug: string }):
   return revisions.flatMap((revision) => flattenPublishedResults(revision));
 }
 
-const fullContent = sql<FrozenReportContent>`${reportRevisions.content}`;
-
-/** The finished analyses readable reports cite for one tool, with their figures and chart series. */
-export async function listPublishedAnalysesForTool({ toolSlug }: { toolSlug: string }): Promise<PublishedAnalysis[]> {
-  const revisions = await listCurrentRevisions({ content: fullContent, where: citesTool(toolSlug) });
-  return revisions.flatMap((revision) => listPublishedAnalyses(revision, { toolSlug }));
-}
-
-/** A tool's published results and cited analyses from one read of the revisions, which the analyses need whole anyway. */
+/**
+ * A tool's published results and the finished analyses readable reports cite for it, with their figures and chart
+ * series, from one read of the revisions, which the analyses need whole anyway.
+ */
 export async function listPublishedFiguresForTool({ toolSlug }: { toolSlug: string }): Promise<{ results: PublishedResult[]; analyses: PublishedAnalysis[] }> {
-  const revisions = await listCurrentRevisions({ content: fullContent, where: citesTool(toolSlug) });
+  const revisions = await listCurrentRevisions({ content: sql<FrozenReportContent>`${reportRevisions.content}`, where: citesTool(toolSlug) });
   return {
-    results: revisions.flatMap((revision) => flattenPublishedResults(revision, { toolSlug })).sort(compareResults),
+    results: toolResults(revisions, toolSlug),
     analyses: revisions.flatMap((revision) => listPublishedAnalyses(revision, { toolSlug })),
   };
 }

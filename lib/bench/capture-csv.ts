@@ -323,7 +323,6 @@ export async function readClaimedBlocks(plan: CaptureBlockPlan, side: "front" | 
 /** A block reached the rows set aside for it: not a problem with the file, so not a CaptureError. */
 class RowLimitReached extends Error {}
 
-
 /** Line feeds four bytes at a time: a word holds one only when (x − 0x01010101) & ~x & 0x80808080 is set for x = word ^ 0x0a0a0a0a. */
 function countLineFeeds(buffer: Uint8Array, length: number): number {
   const words = new Int32Array(buffer.buffer, buffer.byteOffset, length >> 2);
@@ -560,17 +559,7 @@ class CaptureReader {
         for (const channel of [this.current, this.voltage, this.temperature]) channel?.copyWithin(this.rows, block.row, block.row + block.rows);
       }
       const lineOf = (line: number) => this.line + line;
-      if (block.rows > 0 && this.hasTime) {
-        if (this.rows === 0) this.firstTime = block.firstTime;
-        else {
-          const interval = block.firstTime - this.lastTime;
-          if (!(interval > 0)) throw timeNotIncreasing(block.firstTime, this.lastTime, lineOf(block.firstTimeLine));
-          if (interval > this.largestInterval) {
-            this.largestInterval = interval;
-            this.largestIntervalLine = lineOf(block.firstTimeLine);
-          }
-        }
-      }
+      if (block.rows > 0 && this.hasTime) this.takeTime(block.firstTime, lineOf(block.firstTimeLine));
       if (block.error !== null) throw new CaptureError(block.error.problem, block.error.line === null ? null : lineOf(block.error.line));
       if (block.largestInterval > this.largestInterval) {
         this.largestInterval = block.largestInterval;
@@ -920,115 +909,77 @@ class CaptureReader {
   // value, and rejects what it cannot read.
   private parseRows(bytes: Uint8Array, start: number, end: number): void {
     const roles = this.roles;
-    const hasTime = this.hasTime;
     // Off for the rest of the chunk once a row needs the full loop: the next rows are likely written the same way.
     let plainRows = !roles.includes(TIME_TIMESTAMP) && !roles.includes(SKIP) && roles.length <= PLAIN_ROW_MAX_COLUMNS;
-    const scaleCurrent = this.scaleCurrent;
-    const scaleVoltage = this.scaleVoltage;
-    const scaleTemperature = this.scaleTemperature;
-    let current = this.current;
-    let voltage = this.voltage;
-    let temperature = this.temperature;
-    let capacity = this.capacity;
-    let rows = this.rows;
-    let line = this.line;
-    let lastTime = this.lastTime;
-    let largestInterval = this.largestInterval;
-    let largestIntervalLine = this.largestIntervalLine;
-    let firstTime = this.firstTime;
-    let firstTimeLine = this.firstTimeLine;
-    const firstRow = this.firstRow;
-    const values = this.lineValues;
     const plain = plainRows ? plainRowParser() : null;
     plain?.configure({
       delimiter: this.delimiter,
       commaIsDecimal: this.commaIsDecimal,
       roles,
-      hasTime,
-      scales: { current: scaleCurrent, voltage: scaleVoltage, temperature: scaleTemperature },
-      channels: { current: current !== null, voltage: voltage !== null, temperature: temperature !== null },
+      hasTime: this.hasTime,
+      scales: { current: this.scaleCurrent, voltage: this.scaleVoltage, temperature: this.scaleTemperature },
+      channels: { current: this.current !== null, voltage: this.voltage !== null, temperature: this.temperature !== null },
     });
     let p = start;
-    const grow = () => {
-      this.rows = rows;
-      this.grow(this.dataBytes + p - start);
-      current = this.current;
-      voltage = this.voltage;
-      temperature = this.temperature;
-      capacity = this.capacity;
-    };
-
-    // State lives in locals and goes back to the reader once, here or on a rejection.
-    try {
-      while (p < end) {
-        if (plain !== null && plainRows) {
-          // A range's rows end at its capacity: the row after them is left to the full loop to turn away.
-          if (rows === capacity && !this.readsRange) grow();
-          if (rows < capacity) {
-            const read = plain.read(bytes, p, end, capacity - rows, rows === firstRow, lastTime);
-            if (read.rows > 0) {
-              plain.copyRows(read.rows, rows, current, voltage, temperature);
-              if (hasTime) {
-                if (rows === firstRow) {
-                  firstTime = read.firstTime;
-                  firstTimeLine = line + 1;
-                }
-                if (read.largestInterval > largestInterval) {
-                  largestInterval = read.largestInterval;
-                  largestIntervalLine = line + read.largestIntervalRow + 1;
-                }
-                lastTime = read.lastTime;
+    while (p < end) {
+      if (plain !== null && plainRows) {
+        // A range's rows end at its capacity: the row after them is left to the full loop to turn away.
+        if (this.rows === this.capacity && !this.readsRange) this.grow(this.dataBytes + p - start);
+        if (this.rows < this.capacity) {
+          const read = plain.read(bytes, p, end, this.capacity - this.rows, this.rows === this.firstRow, this.lastTime);
+          if (read.rows > 0) {
+            plain.copyRows(read.rows, this.rows, this.current, this.voltage, this.temperature);
+            if (this.hasTime) {
+              if (this.rows === this.firstRow) {
+                this.firstTime = read.firstTime;
+                this.firstTimeLine = this.line + 1;
               }
-              rows += read.rows;
-              line += read.rows;
-              p = read.next;
-              continue;
+              if (read.largestInterval > this.largestInterval) {
+                this.largestInterval = read.largestInterval;
+                this.largestIntervalLine = this.line + read.largestIntervalRow + 1;
+              }
+              this.lastTime = read.lastTime;
             }
+            this.rows += read.rows;
+            this.line += read.rows;
+            p = read.next;
+            continue;
           }
         }
-        line++;
-        this.line = line;
-        const next = this.readLine(bytes, p, end);
-        if (next < 0) {
-          p = -next;
-          continue;
-        }
-        p = next;
-        plainRows = false;
-        const time = values[TIME_SECONDS] as number;
-        const currentValue = values[CURRENT] as number;
-        const voltageValue = values[VOLTAGE] as number;
-        const temperatureValue = values[TEMPERATURE] as number;
-        if (hasTime) {
-          if (rows === firstRow) {
-            firstTime = time;
-            firstTimeLine = line;
-          } else {
-            const interval = time - lastTime;
-            if (!(interval > 0)) throw timeNotIncreasing(time, lastTime, line);
-            if (interval > largestInterval) {
-              largestInterval = interval;
-              largestIntervalLine = line;
-            }
-          }
-          lastTime = time;
-        }
-        if (rows === capacity) grow();
-        if (current !== null) current[rows] = currentValue * scaleCurrent;
-        if (voltage !== null) voltage[rows] = voltageValue * scaleVoltage;
-        if (temperature !== null) temperature[rows] = temperatureValue * scaleTemperature;
-        rows++;
       }
-    } finally {
-      this.rows = rows;
-      this.line = line;
-      this.dataBytes += end - start;
-      this.lastTime = lastTime;
-      this.largestInterval = largestInterval;
-      this.largestIntervalLine = largestIntervalLine;
-      this.firstTime = firstTime;
-      this.firstTimeLine = firstTimeLine;
+      this.line++;
+      const next = this.readLine(bytes, p, end);
+      if (next < 0) {
+        p = -next;
+        continue;
+      }
+      p = next;
+      plainRows = false;
+      const values = this.lineValues;
+      if (this.hasTime) this.takeTime(values[TIME_SECONDS] as number, this.line);
+      if (this.rows === this.capacity) this.grow(this.dataBytes + p - start);
+      if (this.current !== null) this.current[this.rows] = (values[CURRENT] as number) * this.scaleCurrent;
+      if (this.voltage !== null) this.voltage[this.rows] = (values[VOLTAGE] as number) * this.scaleVoltage;
+      if (this.temperature !== null) this.temperature[this.rows] = (values[TEMPERATURE] as number) * this.scaleTemperature;
+      this.rows++;
     }
+    this.dataBytes += end - start;
+  }
+
+  /** The time checks for the row about to become row this.rows, on `line`: the first time, or a step that must be positive. */
+  private takeTime(time: number, line: number): void {
+    if (this.rows === this.firstRow) {
+      this.firstTime = time;
+      this.firstTimeLine = line;
+    } else {
+      const interval = time - this.lastTime;
+      if (!(interval > 0)) throw timeNotIncreasing(time, this.lastTime, line);
+      if (interval > this.largestInterval) {
+        this.largestInterval = interval;
+        this.largestIntervalLine = line;
+      }
+    }
+    this.lastTime = time;
   }
 
   /** readLine's values for the row it read, by role (TIME_SECONDS for either time column). */
@@ -1062,19 +1013,13 @@ class CaptureReader {
     for (;;) {
       const fieldStart = p;
       const role = field < columnCount ? (roles[field] as number) : SKIP;
-      if (role === SKIP) {
+      if (role === SKIP || role === TIME_TIMESTAMP) {
         while (p < end) {
           c = bytes[p] as number;
           if (c === delimiter || c === LF || c === CR) break;
           p++;
         }
-      } else if (role === TIME_TIMESTAMP) {
-        while (p < end) {
-          c = bytes[p] as number;
-          if (c === delimiter || c === LF || c === CR) break;
-          p++;
-        }
-        time = this.timestampSeconds(bytes, fieldStart, p, line, field);
+        if (role === TIME_TIMESTAMP) time = this.timestampSeconds(bytes, fieldStart, p, line, field);
       } else {
         c = bytes[p] as number;
         while (c === SPACE || c === QUOTE) c = bytes[++p] as number;

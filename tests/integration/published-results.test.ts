@@ -1,7 +1,7 @@
 import { and, eq, inArray } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { listPublishedAnalysesForTool, listPublishedResultsForReport, listPublishedResultsForTool } from "@/db/queries/published-results";
+import { listPublishedFiguresForTool, listPublishedResultsForReport, listPublishedResultsForTool } from "@/db/queries/published-results";
 import { reportRevisions, reports, reportTools, tools, type FrozenReportContent } from "@/db/schema";
 import { measurementKindInfo } from "@/lib/measurement-kinds";
 import { frozenContentForTool, frozenMeasurement } from "../support/frozen-content";
@@ -104,9 +104,9 @@ describe("listPublishedResultsForTool", () => {
   });
 });
 
-describe("listPublishedAnalysesForTool", () => {
+describe("listPublishedFiguresForTool", () => {
   it("gives the cited analyses of current revisions with their figures", async () => {
-    const analyses = await listPublishedAnalysesForTool({ toolSlug: tool.slug });
+    const { analyses } = await listPublishedFiguresForTool({ toolSlug: tool.slug });
     expect(analyses.map((analysis) => analysis.report.slug).sort()).toEqual([corrected, corrected, retracted, retracted].sort());
     const waveform = analyses.find((analysis) => analysis.captureKind === "waveform");
     expect(waveform?.waveform?.current.rms).toBeGreaterThan(0);
